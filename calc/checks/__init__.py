@@ -1,0 +1,13 @@
+"""The registry of checks: one spec per check, in the order they are listed and shown."""
+
+from __future__ import annotations
+
+from calc.checks import sdof
+from calc.spec import CheckSpec
+
+SPECS: tuple[CheckSpec, ...] = (
+    sdof.SPEC,
+)
+"""Every check, in display order. Add a new check's SPEC here."""
+
+BY_ID: dict[str, CheckSpec] = {spec.id: spec for spec in SPECS}

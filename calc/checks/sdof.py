@@ -1,0 +1,90 @@
+"""Check `sdof`: single-mass properties and free response."""
+
+from __future__ import annotations
+
+import math
+
+import numpy as np
+
+from calc import sdof
+from calc.result import Flag, Reference, Result
+from calc.spec import CheckSpec, Field, Inputs, quantity, word
+
+FIELDS = (
+    Field("mass", "Mass", "mass", "9.6 t", "t", shared=True,
+          help="a mass, or a weight read as W/g0"),
+    Field("stiffness", "Stiffness", "stiffness", "42 kN/mm", "kN/mm", group="stiffness"),
+    Field("static_deflection", "Static deflection", "length", "", "mm", group="stiffness",
+          help="deflection of the support under the weight"),
+    Field("damping", "Damping ratio", "ratio", "2 %", "", group="damping", required=False, shared=True),
+    Field("damping_coefficient", "Damping coefficient", "damping_coefficient", "", "kN*s/m",
+          group="damping", required=False),
+    Field("initial_displacement", "Initial displacement", "length", "1 mm", "mm", required=False),
+    Field("initial_velocity", "Initial velocity", "velocity", "", "mm/s", required=False),
+)
+
+REFERENCES = (
+    Reference("Closed-form free vibration of a viscously damped single mass",
+              "Chopra, Dynamics of Structures, ch. 2; Clough & Penzien, Dynamics of Structures, ch. 2"),
+)
+
+
+def compute(inputs: Inputs) -> Result:
+    mass = inputs.value("mass", positive=True)
+    if inputs.has("stiffness"):
+        stiffness = inputs.value("stiffness", positive=True)
+    else:
+        stiffness = sdof.stiffness_from_static_deflection(mass, inputs.value("static_deflection", positive=True))
+    omega_n = sdof.angular_frequency(stiffness, mass)
+    c_cr = sdof.critical_damping(stiffness, mass)
+    flags: list[Flag] = []
+    if inputs.has("damping_coefficient"):
+        zeta = inputs.value("damping_coefficient", minimum=0.0) / c_cr
+    else:
+        zeta = inputs.optional("damping", 0.0, minimum=0.0) or 0.0
+        if not inputs.has("damping"):
+            flags.append(Flag("info", "no damping given: treated as undamped"))
+    values = {
+        "natural_frequency": quantity("Natural frequency", "frequency", omega_n / (2 * math.pi)),
+        "angular_frequency": quantity("Angular frequency", "angular_frequency", omega_n),
+        "natural_period": quantity("Natural period", "time", 2 * math.pi / omega_n),
+        "stiffness": quantity("Stiffness", "stiffness", stiffness),
+        "static_deflection": quantity("Static deflection (m g0 / k)", "length",
+                                      mass * sdof.STANDARD_GRAVITY / stiffness),
+        "damping_ratio": quantity("Damping ratio", "ratio", zeta),
+        "critical_damping": quantity("Critical damping", "damping_coefficient", c_cr),
+        "damping_coefficient": quantity("Damping coefficient", "damping_coefficient", zeta * c_cr),
+        "regime": word("Regime", sdof.regime(zeta)),
+    }
+    if 0 < zeta < 1:
+        decrement = sdof.log_decrement(zeta)
+        values["damped_frequency"] = quantity("Damped frequency", "frequency",
+                                              omega_n * math.sqrt(1 - zeta**2) / (2 * math.pi))
+        values["log_decrement"] = quantity("Log decrement", "number", decrement)
+        values["cycles_to_halve"] = quantity("Cycles to halve amplitude", "number", math.log(2) / decrement)
+    flags.extend(_flags(zeta))
+    u0 = inputs.optional("initial_displacement", 0.0) or 0.0
+    v0 = inputs.optional("initial_velocity", 0.0) or 0.0
+    if u0 == 0 and v0 == 0:
+        u0 = 1e-3
+        flags.append(Flag("info", "no initial condition given: response shown for 1 mm initial displacement"))
+    time = np.linspace(0.0, sdof.response_duration(omega_n, zeta), 801)
+    series = {"time": time, "displacement": sdof.free_response(time, omega_n, zeta, u0, v0)}
+    return inputs.result(values, series=series, flags=tuple(flags), references=REFERENCES)
+
+
+def _flags(zeta: float) -> list[Flag]:
+    if zeta >= 1:
+        return [Flag("caution", f"{sdof.regime(zeta)}: no oscillation; unusual for a structure")]
+    if zeta > 0.2:
+        return [Flag("caution", "damping above 20 %: unusual for a structure without added dampers")]
+    return []
+
+
+SPEC = CheckSpec(
+    id="sdof",
+    title="Single mass",
+    summary="natural frequency, damping regime and free response of one mass on a spring",
+    fields=FIELDS,
+    compute=compute,
+)

@@ -1,0 +1,286 @@
+"""The one unit registry, safe parsing of typed quantities, and display formatting.
+
+Every value a person types goes through :func:`read` (or :func:`parse`). The parser
+never evaluates the text: the number is read with ``float()`` and the unit text is
+checked against a small grammar before pint sees it, so nested powers, huge
+exponents and overlong text are refused instead of computed.
+"""
+
+from __future__ import annotations
+
+import math
+import re
+from dataclasses import dataclass
+
+import pint
+
+from calc.kinds import KINDS, Kind
+
+try:
+    ureg = pint.UnitRegistry(cache_folder=":auto:")
+except OSError:  # no writable cache folder: build the registry in memory
+    ureg = pint.UnitRegistry()
+Q_ = ureg.Quantity
+Quantity = pint.Quantity
+
+STANDARD_GRAVITY = 9.80665
+"""Standard gravity g0 in m/s^2 (3rd CGPM, 1901; NIST SP 811)."""
+
+MAX_TEXT = 60
+"""Longest text accepted in one field (characters)."""
+
+MAX_MAGNITUDE = 1e15
+"""Largest magnitude accepted, in the typed unit; beyond it nothing physical is meant."""
+
+_NUMBER = re.compile(r"^\s*([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d{1,3})?)\s*(.*?)\s*$")
+_UNIT_CHARS = re.compile(r"^[A-Za-z0-9_/*. %()^\-]*$")
+_SUPERSCRIPTS = str.maketrans({"²": "^2", "³": "^3", "⁴": "^4", "·": "*", "×": "*", "µ": "u", "μ": "u"})
+_POWER = re.compile(r"(\*\*|\^)")
+_ANGULAR = re.compile(r"\brad(ians?)?\b")
+
+# Rotational speeds are cycles per time: pint's rpm is 2*pi rad/min, so they are
+# rewritten before pint sees them (1450 rpm -> 24.17 Hz, not 151.8).
+_CYCLIC_ALIASES = {
+    "rpm": "1/min", "r/min": "1/min", "rev/min": "1/min", "cpm": "1/min",
+    "cycles/min": "1/min", "cycle/min": "1/min", "c/min": "1/min",
+    "rps": "1/s", "rev/s": "1/s", "r/s": "1/s", "cps": "1/s", "cycles/s": "1/s", "cycle/s": "1/s",
+}
+_COMMON_ALIASES = {"kips": "kip", "tonnes": "t", "tonne": "t", "sec": "s", "secs": "s", "hz": "Hz",
+                   "khz": "kHz", "gal": "Gal", "KN": "kN", "Kn": "kN", "mm4": "mm^4", "cm4": "cm^4",
+                   "in4": "in^4", "m4": "m^4", "plf": "lbf/ft", "klf": "kip/ft", "kgf": "kgf",
+                   "Mpa": "MPa", "mpa": "MPa", "Gpa": "GPa", "gpa": "GPa", "kpa": "kPa",
+                   "percent": "%", "pc": "%"}
+
+
+class InputError(ValueError):
+    """Text that cannot be read as the field asks; the message is fit to show a person."""
+
+    def __init__(self, field: str, text: str, problem: str, example: str = "") -> None:
+        shown = text if len(text) <= 40 else text[:37] + "..."
+        message = f"{field}: {problem} (got {shown!r})"
+        if example:
+            message += f"; for example {example}"
+        super().__init__(message)
+        self.field = field
+        self.text = text
+        self.problem = problem
+
+
+@dataclass(frozen=True)
+class Reading:
+    """A field's text read as a quantity of its kind, with what the reader assumed."""
+
+    text: str
+    quantity: pint.Quantity
+    kind: str
+    note: str = ""
+
+    @property
+    def si(self) -> float:
+        """Magnitude in the kind's SI unit."""
+        return float(self.quantity.to(KINDS[self.kind].si).magnitude)
+
+
+def parse(text: str, kind: str, field: str = "") -> pint.Quantity:
+    """Read ``text`` as a quantity of ``kind``; raise :class:`InputError` if it is not one."""
+    return read(text, kind, field).quantity
+
+
+def read(text: str, kind: str, field: str = "", default_unit: str | None = None) -> Reading:
+    """Read ``text`` as a quantity of ``kind`` and say how it was read.
+
+    A bare number takes ``default_unit`` (or the kind's SI unit). Raises
+    :class:`InputError` for anything that is not a finite quantity of that kind.
+    """
+    spec = KINDS[kind]
+    name = field or spec.label
+    if not isinstance(text, str) or not text.strip():
+        raise InputError(name, str(text or ""), "empty", spec.example)
+    if len(text) > MAX_TEXT:
+        raise InputError(name, text, f"longer than {MAX_TEXT} characters", spec.example)
+    match = _NUMBER.match(text.translate(_SUPERSCRIPTS))
+    if match is None:
+        raise InputError(name, text, f"expected a number and a unit of {spec.label}", spec.example)
+    number_text, unit_text = match.groups()
+    magnitude = float(number_text)
+    if not math.isfinite(magnitude) or abs(magnitude) > MAX_MAGNITUDE:
+        raise InputError(name, text, "number out of range", spec.example)
+    if not unit_text:
+        unit_text = default_unit or spec.si
+        if spec.ratio and 1.0 < magnitude <= 100.0:
+            return Reading(text, Q_(magnitude, ""), kind, f"did you mean {magnitude:g} %?")
+    reading = _read_unit(text, name, magnitude, unit_text, spec)
+    if spec.integer and not float(reading.quantity.to("").magnitude).is_integer():
+        raise InputError(name, text, "expected a whole number", spec.example)
+    return reading
+
+
+def _read_unit(text: str, name: str, magnitude: float, unit_text: str, spec: Kind) -> Reading:
+    """Attach ``unit_text`` to ``magnitude`` for a field of kind ``spec``."""
+    if "," in unit_text:
+        raise InputError(name, text, "a comma is ambiguous here: write 1450 or 1.45", spec.example)
+    unit_text = _COMMON_ALIASES.get(unit_text, unit_text)
+    note = ""
+    if spec.name in ("frequency", "angular_frequency") and unit_text.lower() in _CYCLIC_ALIASES:
+        unit_text = _CYCLIC_ALIASES[unit_text.lower()]
+    if spec.name == "acceleration":
+        unit_text = re.sub(r"\b(g|G|gn)\b", "g0", unit_text)
+    units = _safe_units(text, name, unit_text, spec)
+    quantity = Q_(magnitude, units)
+    angular = bool(_ANGULAR.search(unit_text))
+    if spec.name == "frequency" and angular:
+        quantity = Q_(magnitude / (2 * math.pi), "Hz") * _rad_free_factor(units)
+        note = "read as angular frequency: f = omega / 2 pi"
+    elif spec.name == "angular_frequency" and not angular and quantity.check("1/[time]"):
+        quantity = Q_(2 * math.pi * quantity.to("Hz").magnitude, "rad/s")
+        note = "read as cyclic frequency: omega = 2 pi f"
+    if spec.name == "frequency" and not angular and _has_angle(units):
+        raise InputError(name, text, "write a rotational speed as rpm, rev/s or Hz", spec.example)
+    if quantity.check(spec.dimension):
+        return Reading(text, quantity, spec.name, note or _pound_note(unit_text, spec))
+    return _read_other_dimension(text, name, quantity, unit_text, spec)
+
+
+def _read_other_dimension(text: str, name: str, quantity: pint.Quantity, unit_text: str,
+                          spec: Kind) -> Reading:
+    """Accept a weight where a mass is asked, or lb meant as lbf; refuse the rest."""
+    if spec.weight_of and quantity.check(spec.weight_of):
+        mass = (quantity / Q_(STANDARD_GRAVITY, "m/s^2")).to(spec.si)
+        shown = format_quantity(mass, spec.name)
+        return Reading(text, mass, spec.name, f"read as weight: m = W/g0 = {shown}")
+    if re.search(r"\blb\b", unit_text):
+        swapped = re.sub(r"\blb\b", "lbf", unit_text)
+        units = _safe_units(text, name, swapped, spec)
+        as_force = Q_(quantity.magnitude, units)
+        if as_force.check(spec.dimension):
+            return Reading(text, as_force, spec.name, "lb read as lbf (pound-force)")
+    raise InputError(name, text, f"{unit_text!r} is not a unit of {spec.label}", spec.example)
+
+
+def _pound_note(unit_text: str, spec: Kind) -> str:
+    """Say how ambiguous US mass units were read."""
+    if spec.name.startswith("mass") and re.search(r"\blb\b", unit_text):
+        return "lb read as pound-mass (write lbf for a weight)"
+    if re.search(r"\bton\b", unit_text):
+        return "ton read as US short ton, 907.2 kg (write t for a tonne)"
+    return ""
+
+
+def _has_angle(units: pint.Unit) -> bool:
+    return any(part in ("radian", "revolution", "degree", "turn") for part in units._units)
+
+
+def _rad_free_factor(units: pint.Unit) -> pint.Quantity:
+    """Scale of ``units`` with its angle removed, relative to 1/s (e.g. rad/min -> 1/60)."""
+    plain = {k: v for k, v in units._units.items() if k != "radian"}
+    factor = Q_(1, ureg.Unit(pint.util.UnitsContainer(plain)))
+    return Q_(factor.to("1/s").magnitude, "")
+
+
+def _safe_units(text: str, name: str, unit_text: str, spec: Kind) -> pint.Unit:
+    """Parse a unit expression after refusing anything that could make pint work hard."""
+    if not _UNIT_CHARS.match(unit_text):
+        raise InputError(name, text, "unexpected characters in the unit", spec.example)
+    if re.search(r"(\*\*|\^)\s*-?\d+\s*(\*\*|\^)", unit_text):
+        raise InputError(name, text, "a power of a power is not a unit", spec.example)
+    pieces = _POWER.split(unit_text)
+    for index in range(2, len(pieces), 2):
+        if not re.match(r"^-?[1-4](?![0-9])", pieces[index]):
+            raise InputError(name, text, "only small whole powers (m^2 ... m^4) are allowed", spec.example)
+    if len(pieces) > 9:
+        raise InputError(name, text, "too many powers in the unit", spec.example)
+    cleaned = _POWER.sub("**", unit_text)
+    try:
+        return ureg.parse_units(cleaned)
+    except (pint.errors.PintError, AttributeError, TypeError, ValueError, SyntaxError,
+            KeyError, IndexError, ZeroDivisionError) as error:
+        raise InputError(name, text, f"unknown unit {unit_text!r}", spec.example) from error
+
+
+def format_number(value: float, digits: int = 4) -> str:
+    """Format ``value`` to ``digits`` significant figures, without exponent where readable."""
+    if value == 0 or not math.isfinite(value):
+        return f"{value:g}"
+    exponent = math.floor(math.log10(abs(value)))
+    if -4 <= exponent < 6:
+        decimals = max(0, digits - 1 - exponent)
+        rounded = round(value, decimals)
+        return f"{rounded:.{decimals}f}"
+    return f"{value:.{digits - 1}e}"
+
+
+def display_unit(quantity: pint.Quantity, kind: str, system: str = "si") -> str:
+    """Choose the display unit of ``kind`` in ``system`` ("si" or "us") for this value."""
+    choices = KINDS[kind].display[system]
+    magnitude = abs(float(quantity.to(KINDS[kind].si).magnitude))
+    for unit in choices:
+        if magnitude >= Q_(1, unit).to(KINDS[kind].si).magnitude * 0.9999:
+            return unit
+    return choices[-1]
+
+
+def format_quantity(quantity: pint.Quantity, kind: str, system: str = "si", digits: int = 4) -> str:
+    """Format a quantity of ``kind`` in the engineering unit of ``system``, e.g. '24.17 Hz'."""
+    unit = display_unit(quantity, kind, system)
+    magnitude = float(quantity.to(unit).magnitude)
+    shown_unit = KINDS[kind].names.get(unit, unit)
+    text = format_number(magnitude, digits)
+    return f"{text} {shown_unit}".rstrip()
+
+
+def to_si(quantity: pint.Quantity, kind: str) -> float:
+    """Magnitude of ``quantity`` in the SI unit of ``kind``."""
+    return float(quantity.to(KINDS[kind].si).magnitude)
+
+
+def si_quantity(value: float, kind: str) -> pint.Quantity:
+    """Wrap an SI magnitude (float or array) as a quantity of ``kind``."""
+    return Q_(value, KINDS[kind].si)
+
+
+def convert(text: str, target: str | None = None) -> tuple[pint.Quantity, str]:
+    """Convert typed text to ``target`` (or to SI), with the cyclic-frequency and g traps handled.
+
+    Returns the converted quantity and a note of how the text was read.
+    """
+    kind = kind_of_text(text)
+    reading = read(text, kind, "value")
+    if target is None:
+        return reading.quantity.to(KINDS[kind].si), reading.note
+    target_kind = kind
+    if kind in ("frequency", "angular_frequency"):
+        target_kind = "angular_frequency" if _ANGULAR.search(target) else "frequency"
+        reading = read(text, target_kind, "value")
+        target = _CYCLIC_ALIASES.get(target.lower(), target) if target_kind == "frequency" else target
+        if target in ("1/min",):
+            return Q_(reading.quantity.to("1/min").magnitude, "1/min"), reading.note
+    units = _safe_units(target, "target unit", target, KINDS[target_kind])
+    if KINDS[target_kind].name == "mass" and Q_(1, units).check("[force]"):
+        return (reading.quantity * Q_(STANDARD_GRAVITY, "m/s^2")).to(units), "mass shown as its weight"
+    try:
+        return reading.quantity.to(units), reading.note
+    except pint.errors.DimensionalityError as error:
+        raise InputError("target unit", target, f"cannot express {KINDS[kind].label} in {target}",
+                         KINDS[kind].example) from error
+
+
+def kind_of_text(text: str) -> str:
+    """Guess the physical kind of free text such as '45 kip/in' (for the convert command)."""
+    match = _NUMBER.match(text.translate(_SUPERSCRIPTS)) if len(text) <= MAX_TEXT else None
+    if match is None:
+        raise InputError("value", text, "expected a number and a unit", "'1450 rpm' or '45 kip/in'")
+    unit_text = _COMMON_ALIASES.get(match.group(2), match.group(2))
+    if unit_text.lower() in _CYCLIC_ALIASES:
+        return "frequency"
+    if re.search(r"\b(g|G|gn)\b", unit_text):
+        return "acceleration"
+    if _ANGULAR.search(unit_text) and "/" in unit_text:
+        return "angular_frequency"
+    probe = KINDS["ratio"]
+    units = _safe_units(text, "value", unit_text or "1", probe)
+    for kind in KINDS.values():
+        if Q_(1, units).check(kind.dimension) and not kind.ratio:
+            return kind.name
+    if Q_(1, units).check(""):
+        return "ratio"
+    raise InputError("value", text, f"no conversion known for {unit_text!r}", "'1450 rpm' or '45 kip/in'")

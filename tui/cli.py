@@ -1,0 +1,145 @@
+"""The `fieldmode` command line, generated from the check specs.
+
+Exit status: 0 done; 2 bad input or unreadable file (one line on stderr); 1 an
+unexpected fault (a bug, reported with the version).
+"""
+
+from __future__ import annotations
+
+import argparse
+import json
+import sys
+from collections.abc import Sequence
+from typing import NoReturn
+
+from calc import __version__
+from calc.checks import BY_ID, SPECS
+from calc.result import CAUTION, Result
+from calc.spec import CheckSpec
+from calc.units import InputError, convert, format_number
+
+EXIT_OK, EXIT_FAULT, EXIT_INPUT = 0, 1, 2
+
+
+class _Parser(argparse.ArgumentParser):
+    """An argument parser whose usage errors are one clear line and exit status 2."""
+
+    def error(self, message: str) -> NoReturn:
+        self.exit(EXIT_INPUT, f"{self.prog}: {message} (see {self.prog} --help)\n")
+
+
+def build_parser() -> argparse.ArgumentParser:
+    """The whole command line: `checks`, `convert`, and one subcommand per check spec."""
+    parser = _Parser(prog="fieldmode", description="Structural-dynamics checks for site work. " + CAUTION)
+    parser.add_argument("--version", action="version", version=f"fieldmode {__version__}")
+    commands = parser.add_subparsers(dest="command", parser_class=_Parser)
+    commands.add_parser("checks", help="list the checks and their inputs")
+    conversion = commands.add_parser("convert", help="unit-safe conversion, e.g. convert '1450 rpm' Hz")
+    conversion.add_argument("text", help="a value with its unit, quoted")
+    conversion.add_argument("unit", nargs="?", help="target unit (default: SI)")
+    for spec in SPECS:
+        _add_check(commands, spec)
+    return parser
+
+
+def _add_check(commands: argparse._SubParsersAction, spec: CheckSpec) -> None:  # type: ignore[type-arg]
+    sub = commands.add_parser(spec.id, help=spec.summary, description=f"{spec.title}: {spec.summary}. {spec.caution}")
+    for spec_field in spec.fields:
+        text = spec_field.shown_label
+        if spec_field.choices:
+            text += ": " + " | ".join(spec_field.choices)
+        if spec_field.help:
+            text += f"; {spec_field.help}"
+        if spec_field.group:
+            text += f" (alternative: one of the '{spec_field.group}' options)"
+        if spec_field.positional:
+            sub.add_argument(spec_field.name, help=text)
+        else:
+            sub.add_argument(spec_field.option, dest=spec_field.name, metavar="VALUE", help=text)
+    sub.add_argument("--json", action="store_true", help="print one JSON object (SI values)")
+    sub.add_argument("--units", choices=("si", "us"), default="si", help="units of the text output")
+
+
+def run(argv: Sequence[str]) -> int:
+    """Run the command line on ``argv``; return the exit status."""
+    args = build_parser().parse_args(argv)
+    if args.command is None:
+        from tui.app import launch  # the app's imports are kept off the command line's start-up
+
+        return launch()
+    if args.command == "checks":
+        print(list_checks())
+        return EXIT_OK
+    if args.command == "convert":
+        return _convert(args.text, args.unit)
+    spec = BY_ID[args.command]
+    texts = {f.name: getattr(args, f.name) for f in spec.fields if getattr(args, f.name) is not None}
+    result = spec.evaluate(texts)
+    if args.json:
+        print(json.dumps(result.to_dict(), allow_nan=False))
+    else:
+        print(render_text(spec, result, args.units))
+    return EXIT_OK
+
+
+def _convert(text: str, unit: str | None) -> int:
+    quantity, note = convert(text, unit)
+    shown_unit = "" if str(quantity.units) == "dimensionless" else f" {quantity.units:~P}"
+    print(f"{text} = {format_number(float(quantity.magnitude))}{shown_unit}" + (f"  ({note})" if note else ""))
+    return EXIT_OK
+
+
+def list_checks() -> str:
+    """Every check with its inputs, for `fieldmode checks`."""
+    lines = []
+    for spec in SPECS:
+        lines.append(f"{spec.id:<16}{spec.title}: {spec.summary}")
+        for spec_field in spec.fields:
+            where = spec_field.name if spec_field.positional else spec_field.option
+            demo = f"  e.g. {spec_field.default!r}" if spec_field.default else ""
+            lines.append(f"    {where:<26}{spec_field.shown_label}{demo}")
+    return "\n".join(lines)
+
+
+def render_text(spec: CheckSpec, result: Result, system: str = "si") -> str:
+    """A check's result as plain text for the terminal."""
+    lines = [f"{spec.title} ({spec.id})", "", "Inputs"]
+    for name, record in result.inputs.items():
+        note = f"   [{record.note}]" if record.note else ""
+        lines.append(f"  {spec.field(name).label:<30}{record.text}{note}")
+    lines += ["", "Results"]
+    scalars = [value for value in result.values.values() if not _is_array(value)]
+    width = max((len(value.label) for value in scalars), default=0) + 2
+    lines += [f"  {value.label:<{width}}{value.shown(system)}" for value in scalars]
+    if result.flags:
+        lines += ["", "Flags"] + [f"  {flag.shown()}" for flag in result.flags]
+    lines += ["", "Method"] + [f"  {ref.method}: {ref.source}" for ref in result.references]
+    lines += ["", f"Caution: {result.caution}"]
+    return "\n".join(lines)
+
+
+def _is_array(value: object) -> bool:
+    magnitude = getattr(getattr(value, "quantity", None), "magnitude", None)
+    return magnitude is not None and getattr(magnitude, "ndim", 0) > 0
+
+
+def main(argv: Sequence[str] | None = None) -> int:
+    """Console entry point: run and turn failures into the exit-status contract."""
+    try:
+        return run(sys.argv[1:] if argv is None else argv)
+    except InputError as error:
+        print(f"fieldmode: {error}", file=sys.stderr)
+        return EXIT_INPUT
+    except OSError as error:
+        print(f"fieldmode: {error.strerror or error}: {error.filename or ''}".rstrip(": "), file=sys.stderr)
+        return EXIT_INPUT
+    except KeyboardInterrupt:
+        return 130
+    except Exception as error:  # an unexpected fault is a bug: say so, with the version
+        print(f"fieldmode {__version__}: internal fault ({type(error).__name__}: {error}); "
+              "please report it with the command you ran", file=sys.stderr)
+        return EXIT_FAULT
+
+
+if __name__ == "__main__":
+    sys.exit(main())
