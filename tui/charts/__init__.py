@@ -1,0 +1,20 @@
+"""Chart functions per check, drawn with plotext inside the app.
+
+Each check id maps to a tuple of draw functions; each draws one chart panel from a
+Result onto a plotext-like object ``plt`` (the ``plt`` of a textual-plotext
+``PlotextPlot``). A draw function never computes physics: it plots ``result.series``
+and marks values from ``result.values``.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Callable
+from typing import Any
+
+from calc.result import Result
+
+DrawFunction = Callable[[Any, Result, str], None]
+"""draw(plt, result, system) where system is 'si' or 'us'."""
+
+CHARTS: dict[str, tuple[DrawFunction, ...]] = {}
+"""Check id -> its chart panels, in the order they are shown."""
