@@ -1,0 +1,79 @@
+"""One input of a check: its label with the unit, the text box, and how the text was read."""
+
+from __future__ import annotations
+
+from rich.text import Text
+from textual.app import ComposeResult
+from textual.containers import Horizontal, Vertical
+from textual.suggester import SuggestFromList
+from textual.widgets import Input, Static
+
+from calc.spec import Field
+from tui.widgets.path_suggester import PathSuggester
+
+MAX_INPUT = 4096
+"""Characters accepted in a text box (the parser refuses long text with a clear message)."""
+
+
+def input_id(check_id: str, field_name: str) -> str:
+    """DOM id of a field's text box."""
+    return f"in-{check_id}--{field_name}"
+
+
+class FieldRow(Vertical):
+    """Label line, then the text box with the reading beside it, then an error if any."""
+
+    def __init__(self, check_id: str, spec_field: Field, text: str) -> None:
+        super().__init__(classes="field-row")
+        self.check_id = check_id
+        self.field = spec_field
+        self._text = text
+
+    def compose(self) -> ComposeResult:
+        yield Static(self._label(False), classes="field-label", markup=False)
+        with Horizontal(classes="field-line"):
+            yield Input(self._text, id=input_id(self.check_id, self.field.name), compact=True,
+                        suggester=self._suggester(), max_length=MAX_INPUT, select_on_focus=False)
+            yield Static("", classes="field-note", markup=False)
+        yield Static("", classes="field-error", markup=False)
+
+    def _suggester(self) -> SuggestFromList | PathSuggester | None:
+        if self.field.kind == "choice":
+            return SuggestFromList(self.field.choices, case_sensitive=False)
+        if self.field.kind == "path":
+            return PathSuggester()
+        return None
+
+    def _label(self, focused: bool) -> Text:
+        label = self.field.shown_label
+        if self.field.many:
+            label += ", list"
+        return Text(("> " if focused else "  ") + label)
+
+    @property
+    def input(self) -> Input:
+        return self.query_one(Input)
+
+    def on_descendant_focus(self) -> None:
+        self.query_one(".field-label", Static).update(self._label(True))
+        self.add_class("-focused")
+
+    def on_descendant_blur(self) -> None:
+        self.query_one(".field-label", Static).update(self._label(False))
+        self.remove_class("-focused")
+
+    def show(self, note: str, error: str) -> None:
+        """Show how the text was read, or what is wrong with it (marked with '!')."""
+        self.query_one(".field-note", Static).update(Text(note if not error else "! not read"))
+        error_box = self.query_one(".field-error", Static)
+        error_box.update(Text("! " + error) if error else Text(""))
+        error_box.display = bool(error)
+        self.set_class(bool(error), "-error")
+
+    def set_text(self, text: str) -> None:
+        """Put ``text`` in the box without it counting as typing (no Changed message)."""
+        box = self.input
+        if box.value != text:
+            with box.prevent(Input.Changed):
+                box.value = text
+                box.cursor_position = len(text)
