@@ -82,7 +82,7 @@ def _damping_rows() -> tuple[Row, ...]:
             for level, construction, low, high in NEWMARK_HALL_DAMPING]
     for structure, decrement in EN1991_LOG_DECREMENTS:
         percent = 100.0 * ratio_from_log_decrement(decrement)
-        rows.append(Row(structure, f"{percent:.2f} %", f"log decrement {decrement:g}", _EN_F2))
+        rows.append(Row(structure, f"{percent:.3g} %", f"log decrement {decrement:g}", _EN_F2))
     return tuple(rows)
 
 

@@ -10,6 +10,7 @@ from __future__ import annotations
 
 import math
 import re
+import tokenize
 from dataclasses import dataclass
 
 import pint
@@ -193,7 +194,7 @@ def _safe_units(text: str, name: str, unit_text: str, spec: Kind) -> pint.Unit:
     try:
         return ureg.parse_units(cleaned)
     except (pint.errors.PintError, AttributeError, TypeError, ValueError, SyntaxError,
-            KeyError, IndexError, ZeroDivisionError) as error:
+            KeyError, IndexError, ZeroDivisionError, AssertionError, tokenize.TokenError) as error:
         raise InputError(name, text, f"unknown unit {unit_text!r}", spec.example) from error
 
 

@@ -61,6 +61,19 @@ def evaluate(spec: CheckSpec, texts: Mapping[str, str], system: str) -> Outcome:
     return outcome
 
 
+def evaluate_guarded(spec: CheckSpec, texts: Mapping[str, str], system: str) -> Outcome:
+    """:func:`evaluate`, with any fault of a check turned into a problem shown on screen.
+
+    A check that raises something other than InputError has a bug; the app shows it
+    (type and message, to report) instead of closing and losing the session.
+    """
+    try:
+        return evaluate(spec, texts, system)
+    except Exception as error:  # shown to the person, never hidden: see the docstring
+        return Outcome(spec.id, system, texts=dict(texts),
+                       problem=f"internal fault in {spec.id} ({type(error).__name__}: {error}); please report it")
+
+
 def field_of_error(spec: CheckSpec, error: InputError) -> Field | None:
     """The field an InputError is about, from the label it names (list items: 'Label #3')."""
     for spec_field in spec.fields:

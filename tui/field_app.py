@@ -20,7 +20,7 @@ from textual.widgets import ContentSwitcher
 from calc.checks import SPECS
 from calc.lookups import Row, choices_table, table_for
 from calc.spec import CheckSpec
-from tui.compute import evaluate
+from tui.compute import evaluate_guarded
 from tui.files import describe_os_error
 from tui.record import Entry, default_name, write_record
 from tui.session import SessionStore, state_dir
@@ -249,7 +249,7 @@ class FieldApp(App[int]):
         texts = self.workspace.texts[spec.id]
         outcome = view.outcome
         if outcome is None or outcome.texts != texts or outcome.system != self.workspace.system:
-            outcome = evaluate(spec, texts, self.workspace.system)
+            outcome = evaluate_guarded(spec, texts, self.workspace.system)
         if outcome.result is None:
             self.say("Nothing sent: fix the inputs marked ! first.", warning=True)
             return
@@ -279,7 +279,7 @@ class FieldApp(App[int]):
         specs = self.specs if scope == "session" else (self.workspace.by_id[self.workspace.current],)
         system = self.workspace.system
         entries = [Entry(spec, dict(self.workspace.texts[spec.id]),
-                         evaluate(spec, self.workspace.texts[spec.id], system)) for spec in specs]
+                         evaluate_guarded(spec, self.workspace.texts[spec.id], system)) for spec in specs]
         try:
             write_record(path, entries, system)
         except OSError as error:

@@ -13,7 +13,7 @@ from textual.widgets import Input
 from textual.worker import get_current_worker
 
 from calc.spec import CheckSpec
-from tui.compute import Outcome, evaluate
+from tui.compute import Outcome, evaluate_guarded
 from tui.widgets.chart_view import ChartPane
 from tui.widgets.field_row import FieldRow
 from tui.widgets.results_view import FlagsList, ResultsTable
@@ -51,6 +51,13 @@ class CheckView(Horizontal):
         """True when inputs or units changed while this check was not on screen."""
         self._timer: Timer | None = None
         self._pending = False
+
+    @property
+    def up_to_date(self) -> bool:
+        """True when the outcome on screen is that of the texts and unit system as they are now."""
+        return (not self._pending and self.outcome is not None
+                and self.outcome.texts == self.workspace.texts[self.spec.id]
+                and self.outcome.system == self.workspace.system)
 
     def compose(self) -> ComposeResult:
         texts = self.workspace.texts[self.spec.id]
@@ -119,7 +126,7 @@ class CheckView(Horizontal):
 
     @work(thread=True, exclusive=True, group="compute")
     def _compute(self, texts: dict[str, str], system: str) -> None:
-        outcome = evaluate(self.spec, texts, system)
+        outcome = evaluate_guarded(self.spec, texts, system)
         if not get_current_worker().is_cancelled:
             self.app.call_from_thread(self.apply, outcome)
 
