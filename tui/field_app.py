@@ -32,7 +32,7 @@ from tui.widgets.lookup_screen import LookupScreen
 from tui.widgets.status import CautionLine, KeyBar, TopBar
 from tui.workspace import Workspace
 
-MAIN_ONLY = {"previous_check", "next_check", "go", "units", "view", "lookup", "send", "record"}
+MAIN_ONLY = {"own", "previous_check", "next_check", "go", "units", "view", "lookup", "send", "record"}
 """Actions that act on the check on screen, so not while a dialog is open."""
 
 
@@ -56,6 +56,8 @@ class FieldApp(App[int]):
                 tooltip="send this check's results (such as a stiffness) into the same fields of other checks"),
         Binding("f9", "record", "record", id="record",
                 tooltip="write a calc record (Markdown and JSON) of this check or of the whole session"),
+        Binding("ctrl+o", "own", "own value", show=False, id="field.own",
+                tooltip="a shared field (mass, damping) in focus: keep its own value in this check, or share it again"),
         Binding("f10,ctrl+q", "quit_saved", "quit", key_display="F10", id="quit", priority=True,
                 tooltip="save the session and quit"),
     ]
@@ -239,6 +241,18 @@ class FieldApp(App[int]):
                 self.say(f"{spec_field.label} = {picked.fill}: {picked.description} ({picked.source})")
 
         self.push_screen(LookupScreen(table, spec_field.label), fill)
+
+    def action_own(self) -> None:
+        view = self.current_view
+        row = view.focused_row()
+        if row is None or not row.field.shared:
+            self.say("Ctrl+O works in a shared field (such as mass or damping).")
+            return
+        own = self.workspace.toggle_own(view.spec.id, row.field.name)
+        self.say(f"{row.field.label}: " + ("own value in this check" if own
+                                           else "shared again with the checks showing the same text"))
+        view.request_compute()
+        self.save_soon()
 
     def action_send(self) -> None:
         view = self.current_view

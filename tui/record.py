@@ -17,7 +17,6 @@ from typing import Any
 from calc import __version__
 from calc.result import LEVEL_MARKS
 from calc.spec import CheckSpec
-from calc.units import format_number
 from tui.compute import Outcome, shown_value
 from tui.files import write_atomic
 
@@ -47,12 +46,14 @@ def _cell(text: object) -> str:
 
 
 def _si_text(value: Any, unit: str | None) -> str:
+    """An SI value for the record: 6 significant figures, the unit unless it is a ratio ('1')."""
+    shown_unit = "" if unit in (None, "1") else f" {unit}"
     if value is None:
         return ""
     if isinstance(value, float):
-        return f"{format_number(value, 6)} {unit or ''}".strip()
+        return f"{value:.6g}{shown_unit}"
     if isinstance(value, list):
-        return ", ".join(format_number(v, 6) if isinstance(v, float) else str(v) for v in value) + f" {unit or ''}"
+        return ", ".join(f"{v:.6g}" if isinstance(v, float) else str(v) for v in value) + shown_unit
     return str(value)
 
 

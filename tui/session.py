@@ -43,11 +43,14 @@ class SessionData:
     """Unit system of the results: 'si' or 'us'."""
     current: str = ""
     """Id of the check on screen."""
+    own: dict[str, list[str]] = field(default_factory=dict)
+    """Check id -> shared fields given their own value there."""
 
     def to_json(self) -> str:
         return json.dumps({"format": FORMAT, "version": VERSION,
                            "saved": time.strftime("%Y-%m-%dT%H:%M:%S%z"), "system": self.system,
-                           "current": self.current, "checks": self.texts}, indent=1, ensure_ascii=False)
+                           "current": self.current, "checks": self.texts, "own": self.own},
+                          indent=1, ensure_ascii=False)
 
 
 class SessionFormatError(ValueError):
@@ -66,7 +69,12 @@ def parse_session(text: str) -> SessionData:
         raise SessionFormatError("the checks in the session file are not texts")
     system = data.get("system") if data.get("system") in ("si", "us") else "si"
     current = data.get("current") if isinstance(data.get("current"), str) else ""
-    return SessionData({str(k): dict(v) for k, v in checks.items()}, system, current)
+    own = data.get("own", {})
+    if not isinstance(own, dict) or not all(isinstance(v, list) and all(isinstance(n, str) for n in v)
+                                            for v in own.values()):
+        raise SessionFormatError("the own-value list in the session file is not names")
+    return SessionData({str(k): dict(v) for k, v in checks.items()}, system, current,
+                       {str(k): list(v) for k, v in own.items()})
 
 
 @dataclass

@@ -40,11 +40,11 @@ async def focus_field(app: FieldApp, pilot: Pilot, name: str) -> Input:
 async def type_into(app: FieldApp, pilot: Pilot, name: str, text: str) -> CheckView:
     """Clear a field and type ``text`` key by key; wait for the results."""
     await focus_field(app, pilot, name)
-    await pilot.press("home", "ctrl+k", *_keys(text))
+    await pilot.press("home", "ctrl+k", *keys_for(text))
     return await settle(app, pilot)
 
 
-def _keys(text: str) -> list[str]:
+def keys_for(text: str) -> list[str]:
     names = {" ": "space", "/": "slash", ".": "full_stop", ",": "comma", "%": "percent_sign", "-": "minus",
              "*": "asterisk", "^": "circumflex_accent", "'": "apostrophe", "_": "underscore", "#": "number_sign",
              "(": "left_parenthesis", ")": "right_parenthesis", "+": "plus", "?": "question_mark"}

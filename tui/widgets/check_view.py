@@ -157,8 +157,11 @@ class CheckView(Horizontal):
                       if f.group and f.group == spec_field.group and f is not spec_field]
             note = ("or " + " / ".join(others)) if others else ("optional" if not spec_field.required else "")
         if spec_field.shared and note and any(self.workspace.shared_partners(self.spec.id, name)):
-            linked = self.workspace.linked_count(self.spec.id, name)
-            note += f" (shared with {linked})" if linked else " (own value)"
+            if name in self.workspace.own[self.spec.id]:
+                note += " (own value; ^O shares)"
+            else:
+                linked = self.workspace.linked_count(self.spec.id, name)
+                note += f" (shared with {linked}; ^O own)" if linked else " (^O own)"
         return note
 
     def cycle_view(self) -> str:
