@@ -70,6 +70,8 @@ def compute(inputs: Inputs) -> Result:
         flags.append(Flag("info", "no initial condition given: response shown for 1 mm initial displacement"))
     time = np.linspace(0.0, sdof.response_duration(omega_n, zeta), 801)
     series = {"time": time, "displacement": sdof.free_response(time, omega_n, zeta, u0, v0)}
+    if 0 < zeta < 1:
+        series["envelope"] = sdof.free_envelope(time, omega_n, zeta, u0, v0)
     return inputs.result(values, series=series, flags=tuple(flags), references=REFERENCES)
 
 
