@@ -19,12 +19,14 @@ RESONANCE_BAND = 0.2
 
 def amplification(r: Ratio, zeta: float) -> Ratio:
     """Dynamic amplification R_d = 1 / sqrt((1 - r^2)^2 + (2 zeta r)^2) of the static deflection F0/k."""
-    return cast(Ratio, 1.0 / np.hypot(1.0 - np.square(r), 2.0 * zeta * np.asarray(r)))
+    with np.errstate(over="ignore"):  # r^2 beyond float range: R_d is 0, its limit
+        return cast(Ratio, 1.0 / np.hypot(1.0 - np.square(r), 2.0 * zeta * np.asarray(r)))
 
 
 def phase(r: Ratio, zeta: float) -> Ratio:
     """Phase lag (deg) of the displacement behind the force: atan2(2 zeta r, 1 - r^2), 0 to 180."""
-    return cast(Ratio, np.degrees(np.arctan2(2.0 * zeta * np.asarray(r), 1.0 - np.square(r))))
+    with np.errstate(over="ignore"):  # r^2 beyond float range: 180 deg, its limit
+        return cast(Ratio, np.degrees(np.arctan2(2.0 * zeta * np.asarray(r), 1.0 - np.square(r))))
 
 
 def transmissibility(r: Ratio, zeta: float) -> Ratio:
