@@ -81,5 +81,5 @@ def response_duration(omega_n: float, zeta: float) -> float:
         return 5.0 * period
     if zeta < 1.0:
         return min(max(3.0 / (zeta * omega_n), 3.0 * period), 30.0 * period)
-    slow = omega_n * (zeta - math.sqrt(zeta**2 - 1.0))
+    slow = omega_n / (zeta + math.sqrt(zeta**2 - 1.0))  # = omega_n (zeta - sqrt(zeta^2 - 1)), no cancellation
     return min(3.0 / slow, 30.0 * period)

@@ -51,8 +51,8 @@ def compute(inputs: Inputs) -> Result:
     peak_gain = harmonic.peak_amplification(zeta)
     if unbalance:
         peak_ratio = harmonic.unbalance_peak_ratio(zeta)
-        peak_amplitude = inputs.value("unbalance") / mass * peak_gain if harmonic.has_peak(zeta) else \
-            inputs.value("unbalance") / mass
+        # M u / (m e) peaks at peak_gain, or without a peak tends to 1 at high speed
+        peak_amplitude = inputs.value("unbalance") / mass * (peak_gain if harmonic.has_peak(zeta) else 1.0)
     else:
         peak_ratio = harmonic.peak_ratio(zeta)
         peak_amplitude = static * peak_gain

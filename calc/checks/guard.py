@@ -21,7 +21,8 @@ def overflow_guard(field: str) -> Callable[[Compute], Compute]:
         @functools.wraps(compute)
         def guarded(inputs: Inputs) -> Result:
             try:
-                result = compute(inputs)
+                with np.errstate(all="ignore"):  # non-finite values are caught below, with a clear message
+                    result = compute(inputs)
             except (OverflowError, ZeroDivisionError) as error:
                 raise inputs.error(field, "the values given are too extreme to compute") from error
             if not _all_finite(result):

@@ -69,7 +69,6 @@ def compute(inputs: Inputs) -> Result:
     count = int(inputs.optional("count", 1.0, positive=True) or 1)
     length = _need(inputs, "length", element)
     modulus, modulus_source = _modulus(inputs, element)
-    values: dict[str, Value] = {}
     if element == "axial":
         area = _area(inputs)
         per_member = members.axial_stiffness(modulus, area, length)
@@ -84,7 +83,7 @@ def compute(inputs: Inputs) -> Result:
             per_member = members.column_stiffness(modulus, second_moment, length, ends)
             formula = members.COLUMN_SUPPORTS[ends].formula
     stiffness = count * per_member
-    values = {
+    values: dict[str, Value] = {
         "stiffness": quantity("Stiffness", "stiffness", stiffness),
         "stiffness_per_member": quantity("Stiffness of one member", "stiffness", per_member),
         "formula": word("Formula", f"k = {count} x {formula}" if count > 1 else f"k = {formula}"),

@@ -7,6 +7,7 @@ import math
 import numpy as np
 
 from calc import sdof
+from calc.checks.guard import overflow_guard
 from calc.result import Flag, Reference, Result
 from calc.spec import CheckSpec, Field, Inputs, quantity, word
 
@@ -29,6 +30,7 @@ REFERENCES = (
 )
 
 
+@overflow_guard("mass")
 def compute(inputs: Inputs) -> Result:
     mass = inputs.value("mass", positive=True)
     if inputs.has("stiffness"):
