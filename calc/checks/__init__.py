@@ -2,11 +2,14 @@
 
 from __future__ import annotations
 
-from calc.checks import sdof
+from calc.checks import forced, isolate, member, sdof
 from calc.spec import CheckSpec
 
 SPECS: tuple[CheckSpec, ...] = (
     sdof.SPEC,
+    member.SPEC,
+    forced.SPEC,
+    isolate.SPEC,
 )
 """Every check, in display order. Add a new check's SPEC here."""
 

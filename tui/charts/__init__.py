@@ -12,9 +12,14 @@ from collections.abc import Callable
 from typing import Any
 
 from calc.result import Result
+from tui.charts import forced, isolate, sdof
 
 DrawFunction = Callable[[Any, Result, str], None]
 """draw(plt, result, system) where system is 'si' or 'us'."""
 
-CHARTS: dict[str, tuple[DrawFunction, ...]] = {}
+CHARTS: dict[str, tuple[DrawFunction, ...]] = {
+    "sdof": (sdof.draw_free_response,),
+    "forced": (forced.draw_amplification, forced.draw_phase),
+    "isolate": (isolate.draw_transmissibility,),
+}
 """Check id -> its chart panels, in the order they are shown."""
