@@ -11,6 +11,7 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
+from calc.kinds import KINDS
 from calc.result import Result, Value
 from calc.spec import CheckSpec, Field, read_field
 from calc.units import InputError, Reading, format_quantity
@@ -92,6 +93,8 @@ def _problem(spec_field: Field, error: InputError) -> str:
 def interpretation(spec_field: Field, reading: Reading | tuple[Reading, ...] | str, system: str) -> str:
     """How a field's text was read, e.g. '= 24.17 Hz' or 'read as weight: m = W/g0 = 12 t'."""
     if isinstance(reading, Reading):
+        if KINDS[reading.kind].integer:
+            return f"= {reading.si:.0f}"
         shown = "= " + format_quantity(reading.quantity, reading.kind, system)
         if reading.note and "=" in reading.note:
             return reading.note

@@ -32,7 +32,7 @@ from tui.widgets.lookup_screen import LookupScreen
 from tui.widgets.status import CautionLine, KeyBar, TopBar
 from tui.workspace import Workspace
 
-MAIN_ONLY = {"own", "previous_check", "next_check", "go", "units", "view", "lookup", "send", "record"}
+MAIN_ONLY = {"scroll_results", "own", "previous_check", "next_check", "go", "units", "view", "lookup", "send", "record"}
 """Actions that act on the check on screen, so not while a dialog is open."""
 
 
@@ -58,6 +58,10 @@ class FieldApp(App[int]):
                 tooltip="write a calc record (Markdown and JSON) of this check or of the whole session"),
         Binding("ctrl+o", "own", "own value", show=False, id="field.own",
                 tooltip="a shared field (mass, damping) in focus: keep its own value in this check, or share it again"),
+        Binding("pagedown", "scroll_results(1)", "results down", show=False, id="results.down",
+                tooltip="scroll the results (the fields, in chart view) down a page"),
+        Binding("pageup", "scroll_results(-1)", "results up", show=False, id="results.up",
+                tooltip="scroll the results (the fields, in chart view) up a page"),
         Binding("f10,ctrl+q", "quit_saved", "quit", key_display="F10", id="quit", priority=True,
                 tooltip="save the session and quit"),
     ]
@@ -209,6 +213,9 @@ class FieldApp(App[int]):
     def action_view(self) -> None:
         self.current_view.cycle_view()
         self._show_state()
+
+    def action_scroll_results(self, pages: int) -> None:
+        self.current_view.scroll_results(pages)
 
     def action_keys(self) -> None:
         if not isinstance(self.screen, HelpScreen):

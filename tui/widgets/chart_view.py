@@ -13,6 +13,28 @@ from calc.result import Result
 from tui.charts import CHARTS
 
 
+_BOX_TO_ASCII = str.maketrans({"─": "-", "━": "-", "│": "|", "┃": "|", "┌": "+", "┐": "+", "└": "+", "┘": "+",
+                               "├": "+", "┤": "+", "┬": "+", "┴": "+", "┼": "+", "•": "*", "·": "."})
+
+
+def ascii_only(text: str) -> str:
+    """Chart text for consoles without box or braille characters: lines to - | +, dots to . or *."""
+    text = text.translate(_BOX_TO_ASCII)
+    if text.isascii():
+        return text
+    out = []
+    for char in text:
+        code = ord(char)
+        if char.isascii():
+            out.append(char)
+        elif 0x2800 <= code <= 0x28FF:
+            dots = (code - 0x2800).bit_count()
+            out.append(" " if dots == 0 else "." if dots < 3 else "*")
+        else:
+            out.append("*")
+    return "".join(out)
+
+
 def _safe_plot_class() -> type:
     """A PlotextPlot that shows a drawing fault as text instead of stopping the app (imported late)."""
     from textual_plotext import PlotextPlot
@@ -20,9 +42,12 @@ def _safe_plot_class() -> type:
     class SafePlot(PlotextPlot):
         def render(self) -> Any:
             try:
-                return super().render()
+                drawn = super().render()
             except Exception as error:  # a chart fault must show, not take the app down
                 return Text(f"chart could not be drawn: {type(error).__name__}: {error}")
+            if getattr(self.app, "ascii_borders", False) and isinstance(drawn, Text):
+                drawn.plain = ascii_only(drawn.plain)
+            return drawn
 
     return SafePlot
 

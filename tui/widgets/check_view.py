@@ -23,8 +23,8 @@ THROTTLE = 0.15
 """Seconds: a keystroke after a quiet spell computes at once; further ones within this wait for its end."""
 
 
-class CheckView(Horizontal):
-    """Every field of one check on the left; results (or chart) and flags on the right."""
+class CheckView(Vertical):
+    """Every field of one check on the left, results (or chart) on the right, flags below both."""
 
     @dataclass
     class Edited(Message):
@@ -61,16 +61,17 @@ class CheckView(Horizontal):
 
     def compose(self) -> ComposeResult:
         texts = self.workspace.texts[self.spec.id]
-        with VerticalScroll(classes="fields") as fields:
-            fields.can_focus = False
-            for spec_field in self.spec.fields:
-                yield FieldRow(self.spec.id, spec_field, texts.get(spec_field.name, ""))
-        with Vertical(classes="right"):
-            with VerticalScroll(classes="results-box") as box:
-                box.can_focus = False
-                yield ResultsTable("", classes="results")
-            yield ChartPane(self.spec.id)
-            yield FlagsList("", classes="flags")
+        with Horizontal(classes="panes"):
+            with VerticalScroll(classes="fields") as fields:
+                fields.can_focus = False
+                for spec_field in self.spec.fields:
+                    yield FieldRow(self.spec.id, spec_field, texts.get(spec_field.name, ""))
+            with Vertical(classes="right"):
+                with VerticalScroll(classes="results-box") as box:
+                    box.can_focus = False
+                    yield ResultsTable("", classes="results")
+                yield ChartPane(self.spec.id)
+        yield FlagsList("", classes="flags")
 
     def on_mount(self) -> None:
         self.query_one(ChartPane).display = False
@@ -163,6 +164,11 @@ class CheckView(Horizontal):
                 linked = self.workspace.linked_count(self.spec.id, name)
                 note += f" (shared with {linked}; ^O own)" if linked else " (^O own)"
         return note
+
+    def scroll_results(self, pages: int) -> None:
+        """Scroll the results (or the fields, in chart view) by whole pages."""
+        box = self.query_one(".fields" if self.view else ".results-box", VerticalScroll)
+        box.scroll_to(y=box.scroll_y + pages * max(1, box.size.height - 1), animate=False)
 
     def cycle_view(self) -> str:
         """Results -> chart panel 1 -> ... -> results; return what is shown now."""
