@@ -238,3 +238,21 @@ def test_field_labels_keep_square_brackets(make_app):
             assert "[bold]x" in screen_text(app)
 
     asyncio.run(scenario())
+
+
+def test_a_burst_of_keys_is_applied_in_the_order_typed(make_app):
+    """Over SSH keystrokes arrive together: Home and Backspace must not be overtaken by letters."""
+    from textual import events
+
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            burst = [("home", None), ("ctrl+k", None), *[(c, c) for c in "7.5 kg"], ("backspace", None),
+                     ("backspace", None), ("t", "t")]
+            for key, character in burst:
+                app.post_message(events.Key(key if key != " " else "space", character))
+            view = await settle(app, pilot)
+            assert view.row("mass").input.value == "7.5 t"
+
+    asyncio.run(scenario())

@@ -12,7 +12,6 @@ from textual.widgets import Static
 from calc.result import Result
 from tui.charts import CHARTS
 
-
 _BOX_TO_ASCII = str.maketrans({"─": "-", "━": "-", "│": "|", "┃": "|", "┌": "+", "┐": "+", "└": "+", "┘": "+",
                                "├": "+", "┤": "+", "┬": "+", "┴": "+", "┼": "+", "•": "*", "·": "."})
 

@@ -95,6 +95,8 @@ class CheckView(Vertical):
         if row is None:
             return
         event.stop()
+        if event.value == self.workspace.texts[self.spec.id].get(row.field.name, ""):
+            return  # the box was filled from the session, not typed
         shared = self.workspace.set_text(self.spec.id, row.field.name, event.value)
         self.post_message(self.Edited(self.spec.id, shared))
         self.request_compute()

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 from rich.text import Text
+from textual import events
 from textual.app import ComposeResult
 from textual.containers import Horizontal, Vertical
 from textual.suggester import SuggestFromList
@@ -13,6 +14,26 @@ from tui.widgets.path_suggester import PathSuggester
 
 MAX_INPUT = 4096
 """Characters accepted in a text box (the parser refuses long text with a clear message)."""
+
+
+class FieldInput(Input):
+    """A text box that runs its own editing keys (Home, Backspace, Ctrl+K...) as they arrive.
+
+    Textual handles a focused widget's key bindings only after the key has bubbled up to
+    the app, so in a burst of keys (over SSH, keystrokes often arrive together) the
+    typed characters overtook Home or Backspace typed before them. Running the box's own
+    bindings here keeps every key in the order it was typed.
+    """
+
+    async def _on_key(self, event: events.Key) -> None:
+        if not event.is_printable:
+            bindings = self._bindings.key_to_bindings.get(event.key)
+            if bindings:
+                event.stop()
+                event.prevent_default()
+                await self.run_action(bindings[0].action)
+                return
+        await super()._on_key(event)
 
 
 def input_id(check_id: str, field_name: str) -> str:
@@ -32,7 +53,7 @@ class FieldRow(Vertical):
     def compose(self) -> ComposeResult:
         yield Static(self._label(False), classes="field-label", markup=False)
         with Horizontal(classes="field-line"):
-            yield Input(self._text, id=input_id(self.check_id, self.field.name), compact=True,
+            yield FieldInput(self._text, id=input_id(self.check_id, self.field.name), compact=True,
                         suggester=self._suggester(), max_length=MAX_INPUT, select_on_focus=False)
             yield Static("", classes="field-note", markup=False)
         yield Static("", classes="field-error", markup=False)
