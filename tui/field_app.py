@@ -11,6 +11,7 @@ import os
 import signal
 from collections.abc import Sequence
 from pathlib import Path
+from typing import TYPE_CHECKING
 
 from textual import work
 from textual.app import App, ComposeResult
@@ -18,19 +19,18 @@ from textual.binding import Binding
 from textual.widgets import ContentSwitcher
 
 from calc.checks import SPECS
-from calc.lookups import Row, choices_table, table_for
 from calc.spec import CheckSpec
 from tui.compute import evaluate_guarded
-from tui.files import describe_os_error
-from tui.record import Entry, default_name, write_record
 from tui.session import SessionStore, state_dir
-from tui.widgets.check_list_screen import CheckListScreen
 from tui.widgets.check_view import CheckView
-from tui.widgets.export_screen import ExportScreen
-from tui.widgets.help_screen import HelpScreen, key_rows
-from tui.widgets.lookup_screen import LookupScreen
 from tui.widgets.status import CautionLine, KeyBar, TopBar
 from tui.workspace import Workspace
+
+if TYPE_CHECKING:
+    from calc.lookups import Row
+
+# The dialogs, lookup tables and record writer are imported when first used: start-up
+# time is budgeted (DESIGN.md section 7).
 
 MAIN_ONLY = {"scroll_results", "own", "previous_check", "next_check", "go", "units", "view", "lookup", "send", "record"}
 """Actions that act on the check on screen, so not while a dialog is open."""
@@ -39,7 +39,7 @@ MAIN_ONLY = {"scroll_results", "own", "previous_check", "next_check", "go", "uni
 class FieldApp(App[int]):
     """Every check of the session, one at a time, with fields, results, flags and charts."""
 
-    CSS_PATH = "app.tcss"
+    CSS_PATH = Path(__file__).with_name("app.tcss")
     TITLE = "fieldmode"
     ENABLE_COMMAND_PALETTE = False
     BINDINGS = [
@@ -194,6 +194,8 @@ class FieldApp(App[int]):
         await self._step(1)
 
     def action_go(self) -> None:
+        from tui.widgets.check_list_screen import CheckListScreen
+
         async def picked(check_id: str | None) -> None:
             if check_id:
                 await self.show_check(check_id)
@@ -218,6 +220,8 @@ class FieldApp(App[int]):
         self.current_view.scroll_results(pages)
 
     def action_keys(self) -> None:
+        from tui.widgets.help_screen import HelpScreen, key_rows
+
         if not isinstance(self.screen, HelpScreen):
             self.push_screen(HelpScreen(key_rows([b for b in self.BINDINGS if isinstance(b, Binding)])))
 
@@ -228,6 +232,9 @@ class FieldApp(App[int]):
     # Lookups, sending, records
 
     def action_lookup(self) -> None:
+        from calc.lookups import choices_table, table_for
+        from tui.widgets.lookup_screen import LookupScreen
+
         view = self.current_view
         row = view.focused_row()
         if row is None:
@@ -288,6 +295,9 @@ class FieldApp(App[int]):
         self.save_soon()
 
     def action_record(self) -> None:
+        from tui.record import default_name
+        from tui.widgets.export_screen import ExportScreen
+
         names = {"check": default_name(self.workspace.current), "session": default_name("session")}
         self.push_screen(ExportScreen(names, self.write_record), self._recorded)
 
@@ -297,6 +307,9 @@ class FieldApp(App[int]):
 
     def write_record(self, path: Path, scope: str) -> str:
         """Write the calc record of the current check or the session; '' or the problem."""
+        from tui.files import describe_os_error
+        from tui.record import Entry, write_record
+
         specs = self.specs if scope == "session" else (self.workspace.by_id[self.workspace.current],)
         system = self.workspace.system
         entries = [Entry(spec, dict(self.workspace.texts[spec.id]),

@@ -65,7 +65,7 @@ class CheckView(Vertical):
             with VerticalScroll(classes="fields") as fields:
                 fields.can_focus = False
                 for spec_field in self.spec.fields:
-                    yield FieldRow(self.spec.id, spec_field, texts.get(spec_field.name, ""))
+                    yield FieldRow(self.spec.id, spec_field, texts.get(spec_field.name, ""), self._edited)
             with Vertical(classes="right"):
                 with VerticalScroll(classes="results-box") as box:
                     box.can_focus = False
@@ -75,7 +75,10 @@ class CheckView(Vertical):
 
     def on_mount(self) -> None:
         self.query_one(ChartPane).display = False
-        self.request_compute()
+        if any(f.kind == "path" for f in self.spec.fields):
+            self.request_compute()  # reading a file may take a while: never before the first frame
+        else:  # a few milliseconds: the first frame shows results, without a second layout pass
+            self.apply(evaluate_guarded(self.spec, dict(self.workspace.texts[self.spec.id]), self.workspace.system))
 
     def rows(self) -> list[FieldRow]:
         return list(self.query(FieldRow))
@@ -91,13 +94,13 @@ class CheckView(Vertical):
         self.rows()[0].input.focus()
 
     def on_input_changed(self, event: Input.Changed) -> None:
-        row = next((r for r in self.query(FieldRow) if r.input is event.input), None)
-        if row is None:
-            return
-        event.stop()
-        if event.value == self.workspace.texts[self.spec.id].get(row.field.name, ""):
+        event.stop()  # handled as it happened, in _edited
+
+    def _edited(self, name: str, text: str) -> None:
+        """A field's text changed: save it in the session, share it, compute."""
+        if text == self.workspace.texts[self.spec.id].get(name, ""):
             return  # the box was filled from the session, not typed
-        shared = self.workspace.set_text(self.spec.id, row.field.name, event.value)
+        shared = self.workspace.set_text(self.spec.id, name, text)
         self.post_message(self.Edited(self.spec.id, shared))
         self.request_compute()
 

@@ -2,6 +2,9 @@
 
 from __future__ import annotations
 
+from collections.abc import Callable
+from typing import Any
+
 from rich.text import Text
 from textual import events
 from textual.app import ComposeResult
@@ -25,6 +28,16 @@ class FieldInput(Input):
     bindings here keeps every key in the order it was typed.
     """
 
+    def __init__(self, value: str, edited: Callable[[str], None], **options: Any) -> None:
+        self._edited: Callable[[str], None] | None = None  # the first value is not an edit
+        super().__init__(value, **options)
+        self._edited = edited
+
+    def watch_value(self, value: str) -> None:
+        """Report every change at once to the check pane (a message would hop through five containers)."""
+        if self._edited is not None:
+            self._edited(value)
+
     async def _on_key(self, event: events.Key) -> None:
         if not event.is_printable:
             bindings = self._bindings.key_to_bindings.get(event.key)
@@ -44,17 +57,20 @@ def input_id(check_id: str, field_name: str) -> str:
 class FieldRow(Vertical):
     """Label line, then the text box with the reading beside it, then an error if any."""
 
-    def __init__(self, check_id: str, spec_field: Field, text: str) -> None:
+    def __init__(self, check_id: str, spec_field: Field, text: str, edited: Callable[[str, str], None]) -> None:
         super().__init__(classes="field-row")
         self.check_id = check_id
+        self._edited = edited
         self.field = spec_field
         self._text = text
+        self._shown: tuple[str, str] | None = None
 
     def compose(self) -> ComposeResult:
         yield Static(self._label(False), classes="field-label", markup=False)
         with Horizontal(classes="field-line"):
-            yield FieldInput(self._text, id=input_id(self.check_id, self.field.name), compact=True,
-                        suggester=self._suggester(), max_length=MAX_INPUT, select_on_focus=False)
+            yield FieldInput(self._text, lambda value: self._edited(self.field.name, value),
+                             id=input_id(self.check_id, self.field.name), compact=True,
+                             suggester=self._suggester(), max_length=MAX_INPUT, select_on_focus=False)
             yield Static("", classes="field-note", markup=False)
         yield Static("", classes="field-error", markup=False)
 
@@ -85,6 +101,9 @@ class FieldRow(Vertical):
 
     def show(self, note: str, error: str) -> None:
         """Show how the text was read, or what is wrong with it (marked with '!')."""
+        if (note, error) == self._shown:
+            return
+        self._shown = (note, error)
         self.query_one(".field-note", Static).update(Text(note if not error else "! not read"))
         error_box = self.query_one(".field-error", Static)
         error_box.update(Text("! " + error) if error else Text(""))
@@ -92,9 +111,8 @@ class FieldRow(Vertical):
         self.set_class(bool(error), "-error")
 
     def set_text(self, text: str) -> None:
-        """Put ``text`` in the box without it counting as typing (no Changed message)."""
+        """Put ``text`` in the box; the pane ignores it as an edit (the session holds it already)."""
         box = self.input
         if box.value != text:
-            with box.prevent(Input.Changed):
-                box.value = text
-                box.cursor_position = len(text)
+            box.value = text
+            box.cursor_position = len(text)
