@@ -249,10 +249,11 @@ def test_a_burst_of_keys_is_applied_in_the_order_typed(make_app):
         async with app.run_test(size=SIZE) as pilot:
             await settle(app, pilot)
             burst = [("home", None), ("ctrl+k", None), *[(c, c) for c in "7.5 kg"], ("backspace", None),
-                     ("backspace", None), ("t", "t")]
+                     ("backspace", None), ("t", "t"), ("tab", None), ("home", None), ("ctrl+k", None), ("3", "3")]
             for key, character in burst:
                 app.post_message(events.Key(key if key != " " else "space", character))
             view = await settle(app, pilot)
             assert view.row("mass").input.value == "7.5 t"
+            assert view.row("stiffness").input.value == "3"
 
     asyncio.run(scenario())

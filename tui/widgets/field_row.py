@@ -20,12 +20,13 @@ MAX_INPUT = 4096
 
 
 class FieldInput(Input):
-    """A text box that runs its own editing keys (Home, Backspace, Ctrl+K...) as they arrive.
+    """A text box that keeps a burst of keys in the order typed.
 
-    Textual handles a focused widget's key bindings only after the key has bubbled up to
-    the app, so in a burst of keys (over SSH, keystrokes often arrive together) the
-    typed characters overtook Home or Backspace typed before them. Running the box's own
-    bindings here keeps every key in the order it was typed.
+    Textual runs the key bindings of a focused widget only after the key has bubbled up
+    to the app, so when keystrokes arrive together (over SSH they often do) typed
+    characters overtook a Home, Backspace, Tab or F-key typed before them. Here every
+    bound key runs as it arrives, and characters that arrive after a key moved the
+    focus elsewhere follow the focus.
     """
 
     def __init__(self, value: str, edited: Callable[[str], None], **options: Any) -> None:
@@ -39,12 +40,18 @@ class FieldInput(Input):
             self._edited(value)
 
     async def _on_key(self, event: events.Key) -> None:
+        focused = self.app.focused
+        if focused is not None and focused is not self:
+            event.stop()
+            event.prevent_default()
+            focused.post_message(events.Key(event.key, event.character))
+            return
         if not event.is_printable:
-            bindings = self._bindings.key_to_bindings.get(event.key)
-            if bindings:
+            active = self.screen.active_bindings.get(event.key)
+            if active is not None and active.enabled and not active.binding.priority:
                 event.stop()
                 event.prevent_default()
-                await self.run_action(bindings[0].action)
+                await self.app.run_action(active.binding.action, active.node)
                 return
         await super()._on_key(event)
 
