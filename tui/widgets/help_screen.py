@@ -4,12 +4,13 @@ from __future__ import annotations
 
 from collections.abc import Sequence
 
+from rich.table import Table
 from rich.text import Text
 from textual.app import ComposeResult
 from textual.binding import Binding
-from textual.containers import Vertical
+from textual.containers import Vertical, VerticalScroll
 from textual.screen import ModalScreen
-from textual.widgets import DataTable, Static
+from textual.widgets import Static
 
 EXTRA_KEYS: tuple[tuple[str, str], ...] = (
     ("Tab / Shift+Tab", "next / previous field"),
@@ -34,12 +35,18 @@ class HelpScreen(ModalScreen[None]):
     def __init__(self, rows: list[tuple[str, str, str]]) -> None:
         super().__init__(classes="dialog-screen")
         self._rows = rows
+        """(keys, what, binding id) as listed."""
 
     def compose(self) -> ComposeResult:
         with Vertical(classes="dialog"):
-            yield Static(Text("Keys (Escape closes)", style="bold"))
-            table: DataTable[str] = DataTable(cursor_type="row", zebra_stripes=False)
-            table.add_columns("key", "what it does")
+            yield Static(Text("Keys (Up/Down scroll, Escape closes)", style="bold"))
+            table = Table(box=None, show_header=True, expand=True, padding=(0, 1, 0, 0))
+            table.add_column("key", no_wrap=True)
+            table.add_column("what it does", ratio=1)
             for keys, what, _ in self._rows:
-                table.add_row(keys, what)
-            yield table
+                table.add_row(Text(keys), Text(what))
+            with VerticalScroll(classes="help-keys"):
+                yield Static(table, id="help-table")
+
+    def on_mount(self) -> None:
+        self.query_one(VerticalScroll).focus()
