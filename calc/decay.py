@@ -90,6 +90,8 @@ class Decay:
     noise_rms: float
     band: tuple[float, float] | None
     amplitude_windows: AmplitudeWindows
+    halves: tuple[EnvelopeFit, EnvelopeFit] | None
+    """Envelope fits over the larger and the smaller half of the peaks (None under 8 peaks)."""
     flags: tuple[Flag, ...]
     series: dict[str, np.ndarray] = field(default_factory=dict)
 
@@ -137,11 +139,12 @@ def analyse(time: np.ndarray, signal: np.ndarray, fs: float, band: tuple[float, 
     windows = damping_by_amplitude(peaks, damped)
     cycles = (end - start) * damped
     natural = damped / math.sqrt(1.0 - zeta**2) if 0 <= zeta < 1 else damped
-    flags += _flags(look, fit, line, zeta, crossing, cycles, damping_by_halves(peaks, damped), peaks, noise)
+    halves = damping_by_halves(peaks)
+    flags += _flags(look, fit, line, zeta, crossing, cycles, halves, peaks, noise)
     flags += _record_flags(signal, line, fit, (last - i_start) / fs)
     series = _series(time, x, processed, impact, i_end, peaks, fit, line, look, fs)
     return Decay(natural, damped, line.frequency, crossing, zeta, zeta_low, zeta_high, decrement, cycles, fit,
-                 line, start, end, float(abs(peaks.amplitude[0])), noise, chosen, windows, tuple(flags), series)
+                 line, start, end, float(abs(peaks.amplitude[0])), noise, chosen, windows, halves, tuple(flags), series)
 
 
 def _overview(after: np.ndarray, fs: float, band: tuple[float, float] | None) -> fourier.Overview:

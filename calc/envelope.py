@@ -154,7 +154,7 @@ def damping_by_amplitude(peaks: Peaks, damped_frequency: float, per_window: int 
     return AmplitudeWindows(columns[0], columns[1], columns[2], columns[3])
 
 
-def damping_by_halves(peaks: Peaks, damped_frequency: float) -> tuple[EnvelopeFit, EnvelopeFit] | None:
+def damping_by_halves(peaks: Peaks) -> tuple[EnvelopeFit, EnvelopeFit] | None:
     """Envelope fits over the first (larger) and second (smaller) half of the peaks; None under 8 peaks."""
     half = len(peaks) // 2
     if half < 4:

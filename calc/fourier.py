@@ -71,7 +71,7 @@ def overview(x: np.ndarray, fs: float, f_min: float, f_max: float) -> Overview:
     peaks, _ = find_peaks(amplitude[low:], height=level, prominence=level)
     others, close = [], []
     for peak in low + peaks:
-        f = float(peak * df)
+        f = float((peak + _parabolic(np.log(np.maximum(amplitude[peak - 1:peak + 2], 1e-300)), 1)) * df)
         if abs(f - frequency) <= 3 * df:
             continue
         if frequency / CLOSE_SPAN < f < frequency * CLOSE_SPAN:
@@ -79,7 +79,7 @@ def overview(x: np.ndarray, fs: float, f_min: float, f_max: float) -> Overview:
                 close.append(f)
         else:
             others.append(f)
-    order = np.argsort([-amplitude[round(f / df)] for f in others])
+    order = np.argsort([-amplitude[int(round(f / df))] for f in others])
     return Overview(float(frequency), tuple(others[i] for i in order), tuple(close), noise_density)
 
 

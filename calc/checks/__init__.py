@@ -2,11 +2,13 @@
 
 from __future__ import annotations
 
-from calc.checks import sdof
+from calc.checks import decay, decrement, sdof
 from calc.spec import CheckSpec
 
 SPECS: tuple[CheckSpec, ...] = (
     sdof.SPEC,
+    decay.SPEC,
+    decrement.SPEC,
 )
 """Every check, in display order. Add a new check's SPEC here."""
 

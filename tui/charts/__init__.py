@@ -12,9 +12,12 @@ from collections.abc import Callable
 from typing import Any
 
 from calc.result import Result
+from tui.charts import decay
 
 DrawFunction = Callable[[Any, Result, str], None]
 """draw(plt, result, system) where system is 'si' or 'us'."""
 
-CHARTS: dict[str, tuple[DrawFunction, ...]] = {}
+CHARTS: dict[str, tuple[DrawFunction, ...]] = {
+    "decay": (decay.draw_record, decay.draw_spectrum),
+}
 """Check id -> its chart panels, in the order they are shown."""
