@@ -100,6 +100,8 @@ def analyse(time: np.ndarray, signal: np.ndarray, fs: float, band: tuple[float, 
     """Analyse a uniformly sampled free-decay record; ``band`` (Hz) forces the band-pass range."""
     x = np.asarray(signal, dtype=float)
     t0 = float(time[0])
+    if not (math.isfinite(fs) and fs > 0) or not np.all(np.isfinite(x)):
+        raise DecayError("the sample rate and every sample must be finite numbers")
     if len(x) < MIN_SAMPLES:
         raise DecayError(f"only {len(x)} samples; at least {MIN_SAMPLES} are needed")
     if band is not None and not 0 < band[0] < band[1] < 0.5 * fs:
@@ -213,6 +215,8 @@ def _choose_band(band: tuple[float, float] | None, look: fourier.Overview, impac
             high = min(high, math.sqrt(f * other))
         else:
             low = max(low, math.sqrt(f * other))
+    if not 0 < low < 0.99 * high < 0.5 * fs:
+        return None
     if look.other_modes:
         listed = ", ".join(f"{m:.3g}" for m in sorted(look.other_modes)[:3])
         flags.append(Flag("info", f"other mode(s) near {listed} Hz: band-pass {low:.3g}-{high:.3g} Hz applied"))

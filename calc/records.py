@@ -44,6 +44,8 @@ MAX_SAMPLES = 2_000_000
 """Most samples read from one record."""
 MIN_SAMPLES = 32
 """Fewest samples accepted."""
+MIN_SAMPLE_RATE, MAX_SAMPLE_RATE = 0.01, 1e6
+"""Sample rates accepted (Hz), given or found from the time column."""
 UNIFORM_TOLERANCE = 0.01
 """Steps within this fraction of the median step count as uniform sampling."""
 RESAMPLE_LIMITS = (0.5, 2.0)
@@ -81,8 +83,9 @@ def read_record(path: str | os.PathLike[str], time_column: int | str | None = No
     header name or a 1-based column number (int or digit text).
     """
     shown = str(path)
-    if sample_rate is not None and not (np.isfinite(sample_rate) and sample_rate > 0):
-        raise InputError("sample rate", f"{sample_rate}", "must be a positive number of Hz", "'200 Hz'")
+    if sample_rate is not None and not (MIN_SAMPLE_RATE <= sample_rate <= MAX_SAMPLE_RATE):
+        raise InputError("sample rate", f"{sample_rate}", f"must be {MIN_SAMPLE_RATE:g} to {MAX_SAMPLE_RATE:g} Hz",
+                         "'200 Hz'")
     if sample_rate is not None and time_column is not None:
         raise RecordError(shown, "give a time column or a sample rate, not both")
     layout = layout_mod.sniff(Path(path), shown, MAX_FILE_BYTES)
@@ -241,6 +244,9 @@ def _uniform(layout: Layout, used: list[int], time: np.ndarray, signal: np.ndarr
         raise RecordError(layout.shown, f"{word}: {time[row]:g} s after {time[row - 1]:g} s; "
                           "time must increase", line)
     median = float(np.median(steps))
+    if not MIN_SAMPLE_RATE <= 1.0 / median <= MAX_SAMPLE_RATE:
+        raise RecordError(layout.shown, f"a sample rate of {1 / median:.3g} Hz is outside "
+                          f"{MIN_SAMPLE_RATE:g} to {MAX_SAMPLE_RATE:g} Hz; check the time column and its unit")
     ratio = steps / median
     low, high = float(ratio.min()), float(ratio.max())
     if max(abs(low - 1), abs(high - 1)) <= UNIFORM_TOLERANCE:

@@ -199,7 +199,7 @@ def _safe_units(text: str, name: str, unit_text: str, spec: Kind) -> pint.Unit:
     try:
         return ureg.parse_units(cleaned)
     except (pint.errors.PintError, AttributeError, TypeError, ValueError, SyntaxError,
-            KeyError, IndexError, ZeroDivisionError, tokenize.TokenError) as error:
+            KeyError, IndexError, ZeroDivisionError, AssertionError, tokenize.TokenError) as error:
         raise InputError(name, text, f"unknown unit {unit_text!r}", spec.example) from error
 
 

@@ -5,7 +5,7 @@ from __future__ import annotations
 from calc import decay
 from calc.demo_records import demo_path
 from calc.envelope import damping_from_sigma
-from calc.records import RecordError, read_record
+from calc.records import MAX_SAMPLE_RATE, MIN_SAMPLE_RATE, RecordError, read_record
 from calc.result import Flag, Reference, Result, Value
 from calc.spec import CheckSpec, Field, Inputs, quantity
 
@@ -39,7 +39,7 @@ _SIGNAL_KIND = {"acceleration": "acceleration", "velocity": "velocity", "length"
 
 def compute(inputs: Inputs) -> Result:
     path = inputs.text("file")
-    rate = inputs.optional("sample_rate", None, positive=True)
+    rate = inputs.optional("sample_rate", None, minimum=MIN_SAMPLE_RATE, maximum=MAX_SAMPLE_RATE)
     band = None
     if inputs.has("band"):
         edges = inputs.array("band", positive=True)

@@ -23,7 +23,7 @@ REFERENCES = (
 def compute(inputs: Inputs) -> Result:
     first = inputs.value("first_peak", positive=True)
     later = inputs.value("later_peak", positive=True)
-    cycles = inputs.value("cycles", positive=True, maximum=10_000)
+    cycles = inputs.value("cycles", minimum=0.5, maximum=10_000)
     if later >= first:
         raise inputs.error("later_peak", "must be smaller than the first peak for a decaying trace")
     if first / later > 1e12:
