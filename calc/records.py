@@ -28,6 +28,7 @@ from __future__ import annotations
 import io
 import os
 import re
+import warnings
 from collections.abc import Iterator
 from dataclasses import dataclass
 from pathlib import Path
@@ -170,10 +171,12 @@ def _load(layout: Layout, used: list[int]) -> np.ndarray:
         source = io.StringIO(text.replace('"', "") if layout.quoted else text)
     comments = layout.comments[0] if len(layout.comments) == 1 else layout.comments
     try:
-        data = np.loadtxt(source, delimiter=layout.delimiter, skiprows=layout.first_line - 1,
-                          usecols=order, comments=comments, ndmin=2, quotechar=None,
-                          encoding=None if isinstance(source, io.StringIO) else layout.encoding,
-                          max_rows=MAX_SAMPLES + 1, dtype=float)
+        with warnings.catch_warnings():
+            warnings.filterwarnings("ignore", message="Input line", category=UserWarning)  # blank lines
+            data = np.loadtxt(source, delimiter=layout.delimiter, skiprows=layout.first_line - 1,
+                              usecols=order, comments=comments, ndmin=2, quotechar=None,
+                              encoding=None if isinstance(source, io.StringIO) else layout.encoding,
+                              max_rows=MAX_SAMPLES + 1, dtype=float)
     except (ValueError, IndexError) as error:
         raise _scan(layout, used) or RecordError(layout.shown, f"unreadable data ({error})") from error
     if len(data) > MAX_SAMPLES:
