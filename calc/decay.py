@@ -267,8 +267,9 @@ def _flags(look: fourier.Overview, fit: EnvelopeFit, line: fourier.HalfPower, ze
                                      f"differ by more than {HALF_POWER_MARGIN:.0%}"))
     if cycles < FEW_CYCLES:
         flags.append(Flag("caution", f"only {cycles:.1f} cycles above the noise: damping uncertain"))
-    if zeta <= 0:
-        flags.append(Flag("warning", "the peaks do not decay: not a free decay"))
+    if fit.sigma_low <= 0:
+        flags.append(Flag("warning", "no clear decay: the 95 % interval of the damping includes zero; "
+                                     "is this a free decay?"))
     rising = _envelope_rises(peaks, noise)
     if look.close_modes or (rising and fit.r_squared < 0.95):
         near = f" (peaks near {', '.join(f'{m:.3g}' for m in look.close_modes)} Hz)" if look.close_modes else ""

@@ -154,6 +154,14 @@ def test_amplitude_dependent_damping_is_shown() -> None:
     assert "damping depends on amplitude" in flag_texts(found)
 
 
+def test_a_steady_oscillation_is_not_taken_for_a_decay() -> None:
+    time = np.arange(3000) / 200.0
+    signal = np.sin(2 * np.pi * 6.8 * time)
+    signal[100] = 3.0  # a knock, then the oscillation goes on at the same amplitude
+    found = analyse(time, signal, 200.0)
+    assert "no clear decay" in flag_texts(found)
+
+
 def test_drift_is_removed_so_the_start_offset_does_not_matter() -> None:
     base = analyse(*record())
     shifted = analyse(*record(offset=-2.0, drift=-0.1))
