@@ -180,8 +180,16 @@ def _rough_damping(peaks: Peaks, frequency: float) -> float:
 def _detrend(x: np.ndarray) -> np.ndarray:
     """Remove the least-squares line (offset and linear drift) over the whole record."""
     index = np.arange(len(x), dtype=float)
-    slope, intercept = np.polyfit(index, x, 1)
+    slope, intercept = _line(index, x)
     return x - (intercept + slope * index)
+
+
+def _line(at: np.ndarray, y: np.ndarray) -> tuple[float, float]:
+    """Slope and intercept of the least-squares line through (at, y)."""
+    at_mean, y_mean = float(at.mean()), float(y.mean())
+    centred = at - at_mean
+    slope = float(np.dot(centred, y - y_mean) / np.dot(centred, centred))
+    return slope, y_mean - slope * at_mean
 
 
 def _remove_drift(x: np.ndarray, fs: float, start: int, period: float) -> np.ndarray:
@@ -193,7 +201,7 @@ def _remove_drift(x: np.ndarray, fs: float, start: int, period: float) -> np.nda
     cumulative = np.concatenate([[0.0], np.cumsum(part)])
     mean = (cumulative[width:] - cumulative[:-width]) / width
     centres = start + np.arange(len(mean)) + (width - 1) / 2.0
-    slope, intercept = np.polyfit(centres, mean, 1)
+    slope, intercept = _line(centres, mean)
     return x - (intercept + slope * np.arange(len(x)))
 
 

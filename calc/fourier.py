@@ -20,6 +20,8 @@ CLOSE_MODE_RATIO = 0.10
 """A peak this strong within :data:`CLOSE_SPAN` of the dominant one is a close mode (beating)."""
 CLOSE_SPAN = 1.3
 """Modes within a factor of this of the dominant frequency are 'close'."""
+NOISE_SAMPLES = 2**16
+"""Samples after the impact used for the noise floor."""
 
 
 @dataclass(frozen=True)
@@ -141,7 +143,8 @@ def _noise_density(x: np.ndarray, fs: float, f_min: float) -> float:
     spectrum (Hann segments leak little, so the decay's own line affects only a few lines)."""
     from scipy.signal import welch
 
-    frequency, density = welch(x, fs, nperseg=min(len(x), 256), average="median")
+    part = x[:NOISE_SAMPLES]
+    frequency, density = welch(part, fs, nperseg=min(len(part), 256), detrend=False, average="median")
     usable = density[frequency >= f_min]
     return float(np.median(usable if usable.size else density))
 
