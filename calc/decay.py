@@ -71,7 +71,11 @@ class DecayError(ValueError):
 
 @dataclass(frozen=True)
 class Decay:
-    """What the analysis of a free decay found (Hz, s, signal unit)."""
+    """What the analysis of a free decay found (Hz, s, signal unit).
+
+    The analysis runs on the signal divided by its largest excursion, so any scale of units works;
+    amplitudes here and in ``series`` are in the signal's unit again. ``fit.intercept`` is of the scaled signal.
+    """
 
     natural_frequency: float
     damped_frequency: float
@@ -107,7 +111,10 @@ def analyse(time: np.ndarray, signal: np.ndarray, fs: float, band: tuple[float, 
     if band is not None and not 0 < band[0] < band[1] < 0.5 * fs:
         raise DecayError(f"band {band[0]:g}-{band[1]:g} Hz must lie between 0 and half the sample rate "
                          f"({0.5 * fs:g} Hz), low edge first")
-    x = _detrend(x)
+    scale = float(np.max(np.abs(x - np.median(x))))
+    if scale == 0 or not math.isfinite(scale):
+        raise DecayError("the signal is flat: no decay")
+    x = _detrend((x - np.median(x)) / scale)
     impact = int(np.argmax(np.abs(x)))
     look = _overview(x[impact:impact + COARSE_SAMPLES], fs, band)
     period = 1.0 / look.frequency
@@ -143,10 +150,14 @@ def analyse(time: np.ndarray, signal: np.ndarray, fs: float, band: tuple[float, 
     natural = damped / math.sqrt(1.0 - zeta**2) if 0 <= zeta < 1 else damped
     halves = damping_by_halves(peaks)
     flags += _flags(look, fit, line, zeta, crossing, cycles, halves, peaks, noise)
-    flags += _record_flags(signal, line, fit, (last - i_start) / fs)
+    flags += _record_flags(np.asarray(signal, dtype=float), line, fit, (last - i_start) / fs)
     series = _series(time, x, processed, impact, i_end, peaks, fit, line, look, fs)
+    for name in ("signal", "peak_amplitude", "envelope", "amplitude_spectrum"):
+        series[name] = series[name] * scale
+    windows = AmplitudeWindows(windows.amplitude * scale, windows.damping_ratio, windows.low, windows.high)
     return Decay(natural, damped, line.frequency, crossing, zeta, zeta_low, zeta_high, decrement, cycles, fit,
-                 line, start, end, float(abs(peaks.amplitude[0])), noise, chosen, windows, halves, tuple(flags), series)
+                 line, start, end, float(abs(peaks.amplitude[0])) * scale, noise * scale, chosen, windows, halves,
+                 tuple(flags), series)
 
 
 def _overview(after: np.ndarray, fs: float, band: tuple[float, float] | None) -> fourier.Overview:

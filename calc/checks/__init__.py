@@ -2,11 +2,14 @@
 
 from __future__ import annotations
 
-from calc.checks import decay, decrement, sdof
+from calc.checks import decay, decrement, forced, isolate, member, sdof
 from calc.spec import CheckSpec
 
 SPECS: tuple[CheckSpec, ...] = (
     sdof.SPEC,
+    member.SPEC,
+    forced.SPEC,
+    isolate.SPEC,
     decay.SPEC,
     decrement.SPEC,
 )

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 from calc import decay
+from calc.checks.guard import overflow_guard
 from calc.demo_records import demo_path
 from calc.envelope import damping_from_sigma
 from calc.records import MAX_SAMPLE_RATE, MIN_SAMPLE_RATE, RecordError, read_record
@@ -37,6 +38,7 @@ REFERENCES = (
 _SIGNAL_KIND = {"acceleration": "acceleration", "velocity": "velocity", "length": "length"}
 
 
+@overflow_guard("file")
 def compute(inputs: Inputs) -> Result:
     path = inputs.text("file")
     rate = inputs.optional("sample_rate", None, minimum=MIN_SAMPLE_RATE, maximum=MAX_SAMPLE_RATE)

@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import math
 
+from calc.checks.guard import overflow_guard
 from calc.envelope import decrement_from_peaks
 from calc.result import Flag, Reference, Result
 from calc.spec import CheckSpec, Field, Inputs, quantity
@@ -20,6 +21,7 @@ REFERENCES = (
 )
 
 
+@overflow_guard("first_peak")
 def compute(inputs: Inputs) -> Result:
     first = inputs.value("first_peak", positive=True)
     later = inputs.value("later_peak", positive=True)
