@@ -54,7 +54,9 @@ def compute(inputs: Inputs) -> Result:
     try:
         found = decay.analyse(record.time, record.signal, record.sample_rate, band)
     except decay.DecayError as error:
-        raise RecordError(path, str(error)) from error
+        others = [name for name in record.columns if name != record.channel_name]
+        hint = f"; other columns: {', '.join(others[:6])} (--signal-column)" if len(others) > 1 else ""
+        raise RecordError(path, f"signal column {record.channel_name!r}: {error}{hint}") from error
     kind = _SIGNAL_KIND.get(record.quantity, "number")
     values = _values(found, kind)
     values["sample_rate"] = quantity("Sample rate", "frequency", record.sample_rate)

@@ -43,7 +43,8 @@ def draw_spectrum(plt: Any, result: Result, system: str) -> None:
     series = result.series
     if "frequency" not in series:
         return
-    frequency, amplitude = series["frequency"], series["amplitude_spectrum"]
+    factor, _ = _signal_scale(result, system)
+    frequency, amplitude = series["frequency"], series["amplitude_spectrum"] * factor
     floor = float(np.max(amplitude)) * 1e-4
     plt.plot(frequency, np.maximum(amplitude, floor), marker="braille")
     plt.yscale("log")
