@@ -62,7 +62,9 @@ AMPLITUDE_MARGIN = 0.30
 HALF_POWER_SPAN = math.log(1000.0)
 """The half-power spectrum runs from the decay start until the fitted envelope is down to 1/1000."""
 COARSE_SAMPLES = 2**18
-"""Samples after the impact used for the first look at the spectrum."""
+"""Samples after the impact that are analysed (262 s at 1 kHz)."""
+ROUGH_SAMPLES = 2**16
+"""Samples after the impact used for the first, unfiltered damping estimate."""
 
 
 class DecayError(ValueError):
@@ -111,17 +113,22 @@ def analyse(time: np.ndarray, signal: np.ndarray, fs: float, band: tuple[float, 
     if band is not None and not 0 < band[0] < band[1] < 0.5 * fs:
         raise DecayError(f"band {band[0]:g}-{band[1]:g} Hz must lie between 0 and half the sample rate "
                          f"({0.5 * fs:g} Hz), low edge first")
-    scale = float(np.max(np.abs(x - np.median(x))))
+    level = _detrend(x)
+    impact = int(np.argmax(np.abs(level)))
+    scale = abs(float(level[impact]))
     if scale == 0 or not math.isfinite(scale):
         raise DecayError("the signal is flat: no decay")
-    x = _detrend((x - np.median(x)) / scale)
-    impact = int(np.argmax(np.abs(x)))
+    begin = max(0, impact - COARSE_SAMPLES // 4)  # only the impact and what follows it are analysed
+    part = slice(begin, impact + COARSE_SAMPLES)
+    raw, time, x = x[part], np.asarray(time)[part], level[part] / scale
+    impact -= begin
+    t0 = float(time[0])
     look = _overview(x[impact:impact + COARSE_SAMPLES], fs, band)
     period = 1.0 / look.frequency
     x = _remove_drift(x, fs, impact + int(period * fs), period)
     flags: list[Flag] = []
     noise = math.sqrt(look.noise_density * 0.5 * fs)
-    rough = _decay_peaks(x, fs, look.frequency, impact + int(period * fs), len(x), noise, t0)
+    rough = _decay_peaks(x, fs, look.frequency, impact + int(period * fs), impact + ROUGH_SAMPLES, noise, t0)
     guess = _rough_damping(rough, look.frequency)
     chosen = _choose_band(band, look, abs(x[impact]), noise, guess, fs, flags)
     processed, first, last = x, impact + int(period * fs), len(x)
@@ -150,7 +157,7 @@ def analyse(time: np.ndarray, signal: np.ndarray, fs: float, band: tuple[float, 
     natural = damped / math.sqrt(1.0 - zeta**2) if 0 <= zeta < 1 else damped
     halves = damping_by_halves(peaks)
     flags += _flags(look, fit, line, zeta, crossing, cycles, halves, peaks, noise)
-    flags += _record_flags(np.asarray(signal, dtype=float), line, fit, (last - i_start) / fs)
+    flags += _record_flags(raw, line, fit, (last - i_start) / fs)
     series = _series(time, x, processed, impact, i_end, peaks, fit, line, look, fs)
     for name in ("signal", "peak_amplitude", "envelope", "amplitude_spectrum"):
         series[name] = series[name] * scale
@@ -190,9 +197,14 @@ def _rough_damping(peaks: Peaks, frequency: float) -> float:
 
 def _detrend(x: np.ndarray) -> np.ndarray:
     """Remove the least-squares line (offset and linear drift) over the whole record."""
-    index = np.arange(len(x), dtype=float)
-    slope, intercept = _line(index, x)
-    return x - (intercept + slope * index)
+    count = len(x)
+    index = np.arange(count, dtype=float)
+    mean_index, mean_x = (count - 1) / 2.0, float(x.mean())
+    spread = count * (count**2 - 1) / 12.0  # sum of (i - mean_index)^2
+    slope = (float(np.dot(index, x)) - count * mean_index * mean_x) / spread
+    index *= slope
+    index += mean_x - slope * mean_index
+    return x - index
 
 
 def _line(at: np.ndarray, y: np.ndarray) -> tuple[float, float]:
