@@ -2,13 +2,15 @@
 
 from __future__ import annotations
 
-from calc import decay
+from typing import TYPE_CHECKING
+
 from calc.checks.guard import overflow_guard
 from calc.demo_records import demo_path
-from calc.envelope import damping_from_sigma
-from calc.records import MAX_SAMPLE_RATE, MIN_SAMPLE_RATE, RecordError, read_record
 from calc.result import Flag, Reference, Result, Value
 from calc.spec import CheckSpec, Field, Inputs, quantity
+
+if TYPE_CHECKING:
+    from calc.decay import Decay
 
 FIELDS = (
     Field("file", "Record file", "path", str(demo_path()), positional=True,
@@ -40,6 +42,10 @@ _SIGNAL_KIND = {"acceleration": "acceleration", "velocity": "velocity", "length"
 
 @overflow_guard("file")
 def compute(inputs: Inputs) -> Result:
+    # The analysis modules are imported here, not at the top: every other command starts faster.
+    from calc.decay import DecayError, analyse
+    from calc.records import MAX_SAMPLE_RATE, MIN_SAMPLE_RATE, RecordError, read_record
+
     path = inputs.text("file")
     rate = inputs.optional("sample_rate", None, minimum=MIN_SAMPLE_RATE, maximum=MAX_SAMPLE_RATE)
     band = None
@@ -52,8 +58,8 @@ def compute(inputs: Inputs) -> Result:
                          signal_column=_optional_text(inputs, "signal_column"), sample_rate=rate,
                          signal_unit=_optional_text(inputs, "signal_unit"))
     try:
-        found = decay.analyse(record.time, record.signal, record.sample_rate, band)
-    except decay.DecayError as error:
+        found = analyse(record.time, record.signal, record.sample_rate, band)
+    except DecayError as error:
         others = [name for name in record.columns if name != record.channel_name]
         hint = f"; other columns: {', '.join(others[:6])} (--signal-column)" if len(others) > 1 else ""
         raise RecordError(path, f"signal column {record.channel_name!r}: {error}{hint}") from error
@@ -69,8 +75,10 @@ def _optional_text(inputs: Inputs, name: str) -> str | None:
     return inputs.text(name) if inputs.has(name) else None
 
 
-def _values(found: decay.Decay, kind: str) -> dict[str, Value]:
+def _values(found: Decay, kind: str) -> dict[str, Value]:
     """Result values of the decay analysis (SI)."""
+    from calc.envelope import damping_from_sigma
+
     values = {
         "natural_frequency": quantity("Natural frequency", "frequency", found.natural_frequency),
         "damping_ratio": quantity("Damping ratio (decay fit)", "ratio", found.damping_ratio),

@@ -5,7 +5,6 @@ from __future__ import annotations
 import math
 
 from calc.checks.guard import overflow_guard
-from calc.envelope import decrement_from_peaks
 from calc.result import Flag, Reference, Result
 from calc.spec import CheckSpec, Field, Inputs, quantity
 
@@ -30,6 +29,8 @@ def compute(inputs: Inputs) -> Result:
         raise inputs.error("later_peak", "must be smaller than the first peak for a decaying trace")
     if first / later > 1e12:
         raise inputs.error("later_peak", "is more than 1e12 times smaller than the first peak")
+    from calc.envelope import decrement_from_peaks  # here, not at the top: other commands start faster
+
     decrement, zeta = decrement_from_peaks(first, later, cycles)
     values = {
         "log_decrement": quantity("Log decrement (per cycle)", "number", decrement),
