@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from calc.checks import forced, isolate, member, sdof
+from calc.checks import decay, decrement, forced, isolate, member, sdof
 from calc.spec import CheckSpec
 
 SPECS: tuple[CheckSpec, ...] = (
@@ -10,6 +10,8 @@ SPECS: tuple[CheckSpec, ...] = (
     member.SPEC,
     forced.SPEC,
     isolate.SPEC,
+    decay.SPEC,
+    decrement.SPEC,
 )
 """Every check, in display order. Add a new check's SPEC here."""
 

@@ -12,7 +12,7 @@ from collections.abc import Callable
 from typing import Any
 
 from calc.result import Result
-from tui.charts import forced, isolate, sdof
+from tui.charts import decay, forced, isolate, sdof
 
 DrawFunction = Callable[[Any, Result, str], None]
 """draw(plt, result, system) where system is 'si' or 'us'."""
@@ -21,5 +21,6 @@ CHARTS: dict[str, tuple[DrawFunction, ...]] = {
     "sdof": (sdof.draw_free_response,),
     "forced": (forced.draw_amplification, forced.draw_phase),
     "isolate": (isolate.draw_transmissibility,),
+    "decay": (decay.draw_record, decay.draw_spectrum),
 }
 """Check id -> its chart panels, in the order they are shown."""
