@@ -65,7 +65,7 @@ class FieldRow(Vertical):
     """Label line, then the text box with the reading beside it, then an error if any."""
 
     def __init__(self, check_id: str, spec_field: Field, text: str, edited: Callable[[str, str], None]) -> None:
-        super().__init__(classes="field-row")
+        super().__init__(classes="field-row" + (" -path" if spec_field.kind == "path" else ""))
         self.check_id = check_id
         self._edited = edited
         self.field = spec_field
