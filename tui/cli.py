@@ -10,13 +10,16 @@ import argparse
 import json
 import sys
 from collections.abc import Sequence
-from typing import NoReturn
+from typing import TYPE_CHECKING, NoReturn
 
 from calc import __version__
-from calc.checks import BY_ID, SPECS
-from calc.result import CAUTION, Result
-from calc.spec import CheckSpec
-from calc.units import InputError, convert, format_number
+
+if TYPE_CHECKING:
+    from calc.result import Result
+    from calc.spec import CheckSpec
+
+# The core (numpy, pint, the checks) is imported where it is used: `fieldmode` with no
+# arguments opens the app, whose start-up (tui.app.launch) imports it on its own terms.
 
 EXIT_OK, EXIT_FAULT, EXIT_INPUT = 0, 1, 2
 
@@ -30,6 +33,9 @@ class _Parser(argparse.ArgumentParser):
 
 def build_parser() -> argparse.ArgumentParser:
     """The whole command line: `checks`, `convert`, and one subcommand per check spec."""
+    from calc.checks import SPECS
+    from calc.result import CAUTION
+
     parser = _Parser(prog="fieldmode", description="Structural-dynamics checks for site work. " + CAUTION)
     parser.add_argument("--version", action="version", version=f"fieldmode {__version__}")
     commands = parser.add_subparsers(dest="command", parser_class=_Parser)
@@ -62,11 +68,13 @@ def _add_check(commands: argparse._SubParsersAction, spec: CheckSpec) -> None:  
 
 def run(argv: Sequence[str]) -> int:
     """Run the command line on ``argv``; return the exit status."""
-    args = build_parser().parse_args(argv)
-    if args.command is None:
+    if not argv:
         from tui.app import launch  # the app's imports are kept off the command line's start-up
 
         return launch()
+    from calc.checks import BY_ID
+
+    args = build_parser().parse_args(argv)
     if args.command == "checks":
         print(list_checks())
         return EXIT_OK
@@ -83,6 +91,8 @@ def run(argv: Sequence[str]) -> int:
 
 
 def _convert(text: str, unit: str | None) -> int:
+    from calc.units import convert, format_number
+
     quantity, note = convert(text, unit)
     shown_unit = "" if str(quantity.units) == "dimensionless" else f" {quantity.units:~P}"
     print(f"{text} = {format_number(float(quantity.magnitude))}{shown_unit}" + (f"  ({note})" if note else ""))
@@ -91,6 +101,8 @@ def _convert(text: str, unit: str | None) -> int:
 
 def list_checks() -> str:
     """Every check with its inputs, for `fieldmode checks`."""
+    from calc.checks import SPECS
+
     lines = []
     for spec in SPECS:
         lines.append(f"{spec.id:<16}{spec.title}: {spec.summary}")
@@ -129,18 +141,25 @@ def main(argv: Sequence[str] | None = None) -> int:
         return run(sys.argv[1:] if argv is None else argv)
     except SystemExit as done:  # argparse: --help, --version, or a usage error already reported
         return done.code if isinstance(done.code, int) else EXIT_INPUT
-    except InputError as error:
-        print(f"fieldmode: {error}", file=sys.stderr)
-        return EXIT_INPUT
-    except OSError as error:
-        print(f"fieldmode: {error.strerror or error}: {error.filename or ''}".rstrip(": "), file=sys.stderr)
-        return EXIT_INPUT
     except KeyboardInterrupt:
         return 130
-    except Exception as error:  # an unexpected fault is a bug: say so, with the version
-        print(f"fieldmode {__version__}: internal fault ({type(error).__name__}: {error}); "
-              "please report it with the command you ran", file=sys.stderr)
-        return EXIT_FAULT
+    except Exception as error:  # reported by kind in _failed; an unexpected one is a bug, said so
+        return _failed(error)
+
+
+def _failed(error: Exception) -> int:
+    """Report a failure on one line of stderr; return its exit status."""
+    from calc.units import InputError
+
+    if isinstance(error, InputError):
+        print(f"fieldmode: {error}", file=sys.stderr)
+        return EXIT_INPUT
+    if isinstance(error, OSError):
+        print(f"fieldmode: {error.strerror or error}: {error.filename or ''}".rstrip(": "), file=sys.stderr)
+        return EXIT_INPUT
+    print(f"fieldmode {__version__}: internal fault ({type(error).__name__}: {error}); "
+          "please report it with the command you ran", file=sys.stderr)
+    return EXIT_FAULT
 
 
 if __name__ == "__main__":

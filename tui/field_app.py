@@ -9,7 +9,7 @@ from __future__ import annotations
 import asyncio
 import os
 import signal
-from collections.abc import Sequence
+from collections.abc import Callable, Sequence
 from pathlib import Path
 from typing import TYPE_CHECKING
 
@@ -67,8 +67,10 @@ class FieldApp(App[int]):
     ]
 
     def __init__(self, specs: Sequence[CheckSpec] | None = None, state_folder: Path | None = None,
-                 ascii_borders: bool | None = None) -> None:
+                 ascii_borders: bool | None = None, on_first_frame: Callable[[FieldApp], None] | None = None) -> None:
+        """``on_first_frame`` is called once, when the first results are on screen."""
         super().__init__()
+        self._on_first_frame = on_first_frame
         self.specs = tuple(specs if specs is not None else SPECS)
         self.store = SessionStore(state_folder if state_folder is not None else state_dir())
         loaded = self.store.load()
@@ -147,6 +149,9 @@ class FieldApp(App[int]):
     def on_check_view_computed(self, event: CheckView.Computed) -> None:
         if event.check_id == self.workspace.current:
             self._show_state()
+            if self._on_first_frame is not None:
+                self.call_after_refresh(self._on_first_frame, self)
+                self._on_first_frame = None
 
     def save_soon(self) -> None:
         """Save the session in the background (after every change)."""
@@ -212,8 +217,8 @@ class FieldApp(App[int]):
         self._show_state()
         self.save_soon()
 
-    def action_view(self) -> None:
-        self.current_view.cycle_view()
+    async def action_view(self) -> None:
+        await self.current_view.cycle_view()
         self._show_state()
 
     def action_scroll_results(self, pages: int) -> None:

@@ -1,15 +1,25 @@
-"""Run an app headless until its first full frame, then exit (timed as a whole process by bench_app).
+"""Run an app headless until its first full frame, then exit; print when that frame was done.
 
     python app_first_frame.py bare   a Textual app showing one label
     python app_first_frame.py floor  the same app after importing the core (calc.checks: pint, numpy)
-    python app_first_frame.py field  fieldmode's app on the demo, until the first results are on screen
+    python app_first_frame.py field  fieldmode's app on the demo, started as `fieldmode` starts it
+                                     (tui.cli, then tui.app.launch), until the first results are on screen
+
+The last line printed is ``first-frame <time.monotonic()>`` taken when the frame is on
+screen (the system-wide monotonic clock, comparable with the parent's; bench_app times
+from just before it started this process).
 """
 
 from __future__ import annotations
 
 import sys
 import tempfile
+import time
 from pathlib import Path
+from typing import Any
+
+ROOT = Path(__file__).resolve().parents[2]
+shown_at: list[float] = []
 
 
 def bare() -> None:
@@ -21,32 +31,36 @@ def bare() -> None:
             yield Label("fieldmode")
 
         def on_mount(self) -> None:
-            self.call_after_refresh(self.exit)
+            self.call_after_refresh(self.shown)
+
+        def shown(self) -> None:
+            shown_at.append(time.monotonic())
+            self.exit()
 
     Bare().run(headless=True, size=(80, 24))
 
 
 def field(state: Path) -> None:
-    sys.path.insert(0, str(Path(__file__).resolve().parents[2]))
-    from tui.field_app import FieldApp
-    from tui.widgets.check_view import CheckView
+    sys.path.insert(0, str(ROOT))
+    import tui.cli  # noqa: F401  (the console script's module, as `fieldmode` loads it)
+    from tui.app import launch
 
-    class FirstFrame(FieldApp):
-        def on_check_view_computed(self, event: CheckView.Computed) -> None:
-            super().on_check_view_computed(event)
-            self.call_after_refresh(self.exit)
+    def shown(app: Any) -> None:  # the FieldApp, not imported here: launch() imports it
+        shown_at.append(time.monotonic())
+        app.exit()
 
-    FirstFrame(state_folder=state).run(headless=True, size=(80, 24))
+    launch(state, on_first_frame=shown, headless=True, size=(80, 24))
 
 
 if __name__ == "__main__":
     if sys.argv[1] == "bare":
         bare()
     elif sys.argv[1] == "floor":
-        sys.path.insert(0, str(Path(__file__).resolve().parents[2]))
+        sys.path.insert(0, str(ROOT))
         import calc.checks  # noqa: F401  (what any screen of results needs first)
 
         bare()
     else:
         with tempfile.TemporaryDirectory() as folder:
             field(Path(folder))
+    print(f"first-frame {shown_at[0]!r}")

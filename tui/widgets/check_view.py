@@ -13,6 +13,7 @@ from textual.widgets import Input
 from textual.worker import get_current_worker
 
 from calc.spec import CheckSpec
+from tui.charts import CHARTS
 from tui.compute import Outcome, evaluate_guarded
 from tui.widgets.chart_view import ChartPane
 from tui.widgets.field_row import FieldRow
@@ -51,6 +52,11 @@ class CheckView(Vertical):
         """True when inputs or units changed while this check was not on screen."""
         self._timer: Timer | None = None
         self._pending = False
+        self._rows: dict[str, FieldRow] = {}
+        self._table = ResultsTable("", classes="results")
+        self._flags = FlagsList("", classes="flags")
+        self._chart: ChartPane | None = None
+        """Made the first time a chart is shown."""
 
     @property
     def up_to_date(self) -> bool:
@@ -61,34 +67,38 @@ class CheckView(Vertical):
 
     def compose(self) -> ComposeResult:
         texts = self.workspace.texts[self.spec.id]
+        self._rows = {spec_field.name: FieldRow(self.spec.id, spec_field, texts.get(spec_field.name, ""), self._edited)
+                      for spec_field in self.spec.fields}
+        if not self._reads_files:  # a few milliseconds: the widgets are made with the results in them
+            self._show(evaluate_guarded(self.spec, dict(texts), self.workspace.system))
         with Horizontal(classes="panes"):
             with VerticalScroll(classes="fields") as fields:
                 fields.can_focus = False
-                for spec_field in self.spec.fields:
-                    yield FieldRow(self.spec.id, spec_field, texts.get(spec_field.name, ""), self._edited)
-            with Vertical(classes="right"):
-                with VerticalScroll(classes="results-box") as box:
-                    box.can_focus = False
-                    yield ResultsTable("", classes="results")
-                yield ChartPane(self.spec.id)
-        yield FlagsList("", classes="flags")
+                yield from self._rows.values()
+            with Vertical(classes="right"), VerticalScroll(classes="results-box") as box:
+                box.can_focus = False
+                yield self._table
+        yield self._flags
+
+    @property
+    def _reads_files(self) -> bool:
+        return any(f.kind == "path" for f in self.spec.fields)
 
     def on_mount(self) -> None:
-        self.query_one(ChartPane).display = False
-        if any(f.kind == "path" for f in self.spec.fields):
+        if self.outcome is None:
             self.request_compute()  # reading a file may take a while: never before the first frame
-        else:  # a few milliseconds: the first frame shows results, without a second layout pass
-            self.apply(evaluate_guarded(self.spec, dict(self.workspace.texts[self.spec.id]), self.workspace.system))
+        else:
+            self.post_message(self.Computed(self.spec.id))
 
     def rows(self) -> list[FieldRow]:
-        return list(self.query(FieldRow))
+        return list(self._rows.values())
 
     def row(self, name: str) -> FieldRow:
-        return next(row for row in self.query(FieldRow) if row.field.name == name)
+        return self._rows[name]
 
     def focused_row(self) -> FieldRow | None:
         focused = self.app.focused
-        return next((row for row in self.query(FieldRow) if focused is row.input), None)
+        return next((row for row in self._rows.values() if focused is row.input), None)
 
     def focus_first(self) -> None:
         self.rows()[0].input.focus()
@@ -138,22 +148,22 @@ class CheckView(Vertical):
 
     def apply(self, outcome: Outcome) -> None:
         """Show an outcome: readings and errors beside the fields, results, flags, chart."""
+        self._show(outcome)
+        if self.view and self._chart is not None:
+            self._chart.draw(outcome.result, outcome.system)
+        self.post_message(self.Computed(self.spec.id))
+
+    def _show(self, outcome: Outcome) -> None:
         self.outcome = outcome
-        for row in self.rows():
-            name = row.field.name
+        for name, row in self._rows.items():
             row.show(self._note(name, outcome), outcome.errors.get(name, ""))
-        table = self.query_one(ResultsTable)
-        flags = self.query_one(FlagsList)
         if outcome.result is not None:
-            table.show_result(outcome.result, outcome.system)
-            flags.show_flags(outcome.result.flags)
+            self._table.show_result(outcome.result, outcome.system)
+            self._flags.show_flags(outcome.result.flags)
         else:
             bad = [self.spec.field(name).label for name in outcome.errors]
-            table.show_problem(outcome.problem or "Fix the field marked ! : " + ", ".join(bad))
-            flags.show_flags(())
-        if self.view:
-            self.query_one(ChartPane).draw(outcome.result, outcome.system)
-        self.post_message(self.Computed(self.spec.id))
+            self._table.show_problem(outcome.problem or "Fix the field marked ! : " + ", ".join(bad))
+            self._flags.show_flags(())
 
     def _note(self, name: str, outcome: Outcome) -> str:
         note = outcome.notes.get(name, "")
@@ -175,16 +185,19 @@ class CheckView(Vertical):
         box = self.query_one(".fields" if self.view else ".results-box", VerticalScroll)
         box.scroll_to(y=box.scroll_y + pages * max(1, box.size.height - 1), animate=False)
 
-    def cycle_view(self) -> str:
+    async def cycle_view(self) -> str:
         """Results -> chart panel 1 -> ... -> results; return what is shown now."""
-        pane = self.query_one(ChartPane)
-        panels = max(pane.panel_count, 1)
+        panels = max(len(CHARTS.get(self.spec.id, ())), 1)
         self.view = (self.view + 1) % (panels + 1)
+        if self.view and self._chart is None:
+            self._chart = ChartPane(self.spec.id)
+            await self.query_one(".right").mount(self._chart)
         self.set_class(bool(self.view), "-chart")
         self.query_one(".results-box").display = not self.view
-        pane.display = bool(self.view)
-        if not self.view:
+        if self._chart is not None:
+            self._chart.display = bool(self.view)
+        if not self.view or self._chart is None:
             return "results"
-        pane.panel = self.view - 1
-        pane.draw(self.outcome.result if self.outcome else None, self.workspace.system)
+        self._chart.panel = self.view - 1
+        self._chart.draw(self.outcome.result if self.outcome else None, self.workspace.system)
         return f"chart {self.view}/{panels}"

@@ -62,24 +62,33 @@ def input_id(check_id: str, field_name: str) -> str:
 
 
 class FieldRow(Vertical):
-    """Label line, then the text box with the reading beside it, then an error if any."""
+    """Label line, then the text box with the reading beside it, then an error if any.
+
+    The row draws its label line itself (the field line below it covers the rest of
+    the row), and the error line is made the first time the field has an error: every
+    widget costs start-up time (DESIGN.md section 7).
+    """
 
     def __init__(self, check_id: str, spec_field: Field, text: str, edited: Callable[[str, str], None]) -> None:
         super().__init__(classes="field-row" + (" -path" if spec_field.kind == "path" else ""))
         self.check_id = check_id
-        self._edited = edited
         self.field = spec_field
-        self._text = text
+        self.input: Input = FieldInput(text, lambda value: edited(spec_field.name, value),
+                                       id=input_id(check_id, spec_field.name), compact=True,
+                                       suggester=self._suggester(), max_length=MAX_INPUT, select_on_focus=False)
+        self._note = Static("", classes="field-note", markup=False)
+        self._error: Static | None = None
+        self._composed = False
+        self._focused = False
         self._shown: tuple[str, str] | None = None
 
     def compose(self) -> ComposeResult:
-        yield Static(self._label(False), classes="field-label", markup=False)
+        self._composed = True
         with Horizontal(classes="field-line"):
-            yield FieldInput(self._text, lambda value: self._edited(self.field.name, value),
-                             id=input_id(self.check_id, self.field.name), compact=True,
-                             suggester=self._suggester(), max_length=MAX_INPUT, select_on_focus=False)
-            yield Static("", classes="field-note", markup=False)
-        yield Static("", classes="field-error", markup=False)
+            yield self.input
+            yield self._note
+        if self._error is not None:
+            yield self._error
 
     def _suggester(self) -> SuggestFromList | PathSuggester | None:
         if self.field.kind == "choice":
@@ -88,33 +97,36 @@ class FieldRow(Vertical):
             return PathSuggester()
         return None
 
-    def _label(self, focused: bool) -> Text:
+    def render(self) -> Text:
+        """The label line: a '>' marker on the field in focus, the label with its unit."""
         label = self.field.shown_label
         if self.field.many:
             label += ", list"
-        return Text(("> " if focused else "  ") + label)
-
-    @property
-    def input(self) -> Input:
-        return self.query_one(Input)
+        return Text(("> " if self._focused else "  ") + label, style="bold")
 
     def on_descendant_focus(self) -> None:
-        self.query_one(".field-label", Static).update(self._label(True))
-        self.add_class("-focused")
+        self._focused = True
+        self.refresh()
 
     def on_descendant_blur(self) -> None:
-        self.query_one(".field-label", Static).update(self._label(False))
-        self.remove_class("-focused")
+        self._focused = False
+        self.refresh()
 
     def show(self, note: str, error: str) -> None:
         """Show how the text was read, or what is wrong with it (marked with '!')."""
         if (note, error) == self._shown:
             return
         self._shown = (note, error)
-        self.query_one(".field-note", Static).update(Text(note if not error else "! not read"))
-        error_box = self.query_one(".field-error", Static)
-        error_box.update(Text("! " + error) if error else Text(""))
-        error_box.display = bool(error)
+        self._note.update(Text(note if not error else "! not read"))
+        if self._error is None:
+            if not error:
+                return
+            self._error = Static(Text("! " + error), classes="field-error", markup=False)
+            if self._composed:
+                self.mount(self._error)
+        else:
+            self._error.update(Text("! " + error) if error else Text(""))
+        self._error.display = bool(error)
         self.set_class(bool(error), "-error")
 
     def set_text(self, text: str) -> None:
