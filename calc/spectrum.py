@@ -5,8 +5,8 @@ recurrence (Chopra, Dynamics of Structures, Table 5.2.1), i.e. the first-order-h
 discretisation x[k+1] = A x[k] + g0 ag[k] + g1 ag[k+1], whose coefficients are taken from the
 matrix exponential of the augmented system (no cancellation at small omega dt).
 
-Speed: the recurrence is regrouped in blocks of ``BLOCK`` steps. The state at each block start
-follows from one compiled linear filter per period (scipy.signal.lfilter); every response value
+Speed: the recurrence is regrouped in blocks of ``BLOCK`` steps. The states at the block starts
+follow from the same regrouping applied to the block-to-block recurrence; every response value
 inside the blocks is then a fixed linear map of the block's inputs and its start state, evaluated
 for many periods at once as one matrix product (BLAS). No Python loop runs per time step.
 
@@ -34,6 +34,8 @@ BLOCK = 16
 """Steps per block of the block recurrence."""
 CHUNK_VALUES = 1_000_000
 """Response values computed per matrix product (bounds memory to a few MB)."""
+SCAN_BLOCK = 32
+"""Block starts handled per group when solving the block-to-block recurrence."""
 TAYLOR_TERMS = 24
 """Terms of the Taylor series of the step's matrix exponential."""
 PERIODS_PER_PRODUCT = 4
@@ -42,9 +44,6 @@ MAX_WORK = 3e8
 """Largest number of period-steps (sum over periods of analysed steps) accepted."""
 DEFAULT_GRID = (0.02, 10.0, 200)
 """Default period grid: shortest (s), longest (s), number of log-spaced periods."""
-
-
-_ONE = np.ones(1)
 
 
 class WorkLimitError(ValueError):
@@ -140,10 +139,7 @@ class _Group:
         self.acc[: len(acc)] = acc
         a, g0, g1 = foh_coefficients(omega, zeta, h)
         count = len(omega)
-        powers = np.empty((count, size + 1, 2, 2))
-        powers[:, 0] = np.eye(2)
-        for n in range(1, size + 1):
-            powers[:, n] = a @ powers[:, n - 1]
+        powers = _powers(a, size)
         h0 = np.concatenate([np.zeros((count, 1, 2, 1)), powers[:, :size] @ g0[:, None, :, None]], axis=1)[..., 0]
         h1 = (powers @ g1[:, None, :, None])[..., 0]
         m = np.arange(size + 1)[:, None]
@@ -162,7 +158,8 @@ class _Group:
         self.inputs = np.lib.stride_tricks.sliding_window_view(self.acc, size + 1)[::size].T.copy()
         ends = (forced[:, size].transpose(0, 2, 1).reshape(2 * count, size + 1) @ self.inputs)
         ends = ends.reshape(count, 2, -1)
-        self.starts, self.final = _block_starts(powers[:, size], ends)
+        states = _scan(powers[:, size], ends)
+        self.starts, self.final = states[:, :, :-1], states[:, :, -1]
 
     starts: np.ndarray
     """(P, 2, blocks): state at the start of each block."""
@@ -203,28 +200,42 @@ class _Group:
                 yield slice(first, first + periods), slice(start, start + blocks)
 
 
-def _block_starts(end_map: np.ndarray, ends: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
-    """States at block starts from s[j+1] = M s[j] + f[j], s[0] = 0, by a compiled filter per period.
+def _scan(transition: np.ndarray, drive: np.ndarray) -> np.ndarray:
+    """States s[0..n] of s[j+1] = M s[j] + f[j], s[0] = 0, per period: M (P, 2, 2), f (P, 2, n) -> (P, 2, n + 1).
 
-    By Cayley-Hamilton each component obeys s[j+1] - tr(M) s[j] + det(M) s[j-1] = f[j] + (M - tr(M) I) f[j-1].
-    Returns the states at the start of each block (P, 2, blocks) and after the last one (P, 2).
+    The same regrouping as the time steps: drives are taken ``SCAN_BLOCK`` at a time, the states at
+    the group starts come from this function one level up, the states inside from one matrix
+    product per period. A Python loop runs only on the top level (at most ``SCAN_BLOCK`` groups).
     """
-    from scipy.signal import lfilter
+    count, _, n = drive.shape
+    size = SCAN_BLOCK
+    if n <= size:
+        states = np.zeros((count, 2, n + 1))
+        for j in range(n):
+            states[:, :, j + 1] = (transition @ states[:, :, j, None])[..., 0] + drive[:, :, j]
+        return states
+    groups = -(-n // size)
+    padded = np.zeros((count, 2, groups * size))
+    padded[:, :, :n] = drive
+    powers = _powers(transition, size)
+    lag = np.arange(size)[:, None] - np.arange(size)[None, :]
+    weights = np.where(lag >= 0, 1.0, 0.0)[None, :, :, None, None] * powers[:, np.clip(lag, 0, size)]
+    weights = weights.transpose(0, 1, 3, 2, 4).reshape(count, 2 * size, 2 * size)
+    grouped = padded.reshape(count, 2, groups, size).transpose(0, 3, 1, 2).reshape(count, 2 * size, groups)
+    forced = (weights @ grouped).reshape(count, size, 2, groups)
+    starts = _scan(powers[:, size], forced[:, -1])[:, :, :-1]
+    free = (powers[:, 1:, :, 0, None] * starts[:, None, None, 0] + powers[:, 1:, :, 1, None] * starts[:, None, None, 1])
+    inside = (forced + free).transpose(0, 2, 3, 1).reshape(count, 2, groups * size)
+    return np.concatenate([np.zeros((count, 2, 1)), inside[:, :, :n]], axis=2)
 
-    trace = end_map[:, 0, 0] + end_map[:, 1, 1]
-    det = end_map[:, 0, 0] * end_map[:, 1, 1] - end_map[:, 0, 1] * end_map[:, 1, 0]
-    drive = ends.copy()
-    for row in range(2):
-        for col in range(2):
-            coefficient = end_map[:, row, col] - (trace if row == col else 0.0)
-            drive[:, row, 1:] += coefficient[:, None] * ends[:, col, :-1]
-    after = np.empty_like(ends)
-    for p in range(len(trace)):
-        denominator = np.array([1.0, -trace[p], det[p]])
-        for row in range(2):
-            after[p, row] = lfilter(_ONE, denominator, drive[p, row])
-    starts = np.concatenate([np.zeros((len(trace), 2, 1)), after[:, :, :-1]], axis=2)
-    return starts, after[:, :, -1]
+
+def _powers(transition: np.ndarray, size: int) -> np.ndarray:
+    """M^0 .. M^size per period: (P, 2, 2) -> (P, size + 1, 2, 2)."""
+    powers = np.empty((len(transition), size + 1, 2, 2))
+    powers[:, 0] = np.eye(2)
+    for n in range(1, size + 1):
+        powers[:, n] = transition @ powers[:, n - 1]
+    return powers
 
 
 def _extremes(group: _Group) -> np.ndarray:

@@ -2,11 +2,14 @@
 
 from __future__ import annotations
 
-from calc.checks import sdof
+from calc.checks import design_spectrum, period, sdof, spectrum
 from calc.spec import CheckSpec
 
 SPECS: tuple[CheckSpec, ...] = (
     sdof.SPEC,
+    period.SPEC,
+    design_spectrum.SPEC,
+    spectrum.SPEC,
 )
 """Every check, in display order. Add a new check's SPEC here."""
 

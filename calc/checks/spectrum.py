@@ -1,0 +1,215 @@
+"""Check `spectrum`: response spectrum of an accelerogram, with the EN 1998-1 spectrum overlaid."""
+
+from __future__ import annotations
+
+import numpy as np
+
+from calc import seismic
+from calc import spectrum as core
+from calc.checks.design_spectrum import GROUND_FIELDS, design_ground_acceleration, read_shape
+from calc.groundmotion import demo_path
+from calc.result import SEISMIC_CAUTION, Flag, Reference, Result
+from calc.spec import CheckSpec, Field, Inputs, Value, quantity
+from calc.units import STANDARD_GRAVITY
+
+MAX_PERIOD = 20.0
+"""Longest period accepted (s)."""
+MAX_COUNT = 500
+"""Most periods in a grid."""
+SIGNAL_UNITS = {"g": STANDARD_GRAVITY, "m/s^2": 1.0, "cm/s^2": 0.01}
+
+FIELDS = (
+    Field("file", "Accelerogram file", "path", demo_path(), positional=True,
+          help="text columns: time and ground acceleration (or give the sample rate)"),
+    Field("signal_unit", "Signal unit", "choice", "g", choices=tuple(SIGNAL_UNITS), required=False,
+          help="unit of the acceleration column"),
+    Field("time_column", "Time column", "count", "", required=False, help="1-based; default the first"),
+    Field("signal_column", "Signal column", "count", "", required=False, help="1-based; default the second"),
+    Field("sample_rate", "Sample rate", "frequency", "", "Hz", required=False,
+          help="when the file has no time column"),
+    Field("damping", "Damping ratio", "ratio", "5 %", "", required=False, help="default 5 %"),
+    Field("period", "Period to mark", "time", "0.53 s", "s", required=False, shared=True,
+          help="results and time history at this period"),
+    Field("periods", "Periods", "time", "", "s", many=True, required=False,
+          help="a list instead of the log-spaced grid"),
+    Field("shortest_period", "Shortest period", "time", "0.02 s", "s", required=False),
+    Field("longest_period", "Longest period", "time", "10 s", "s", required=False),
+    Field("period_count", "Number of periods", "count", "200", required=False),
+    *(Field(f.name, f.label, f.kind, f.default, f.unit, required=False, choices=f.choices, shared=True,
+            help="EN 1998-1 elastic spectrum overlaid when the ground acceleration is given")
+      for f in GROUND_FIELDS),
+)
+
+REFERENCES = (
+    Reference("Exact recurrence for ground acceleration linear between samples (Nigam-Jennings), "
+              "steps <= T/20 by linear resampling, peaks refined by cubic Hermite interpolation",
+              "Nigam & Jennings (1969); Chopra, Dynamics of Structures, sec. 5.2, Table 5.2.1"),
+    Reference("Baseline: least-squares c1 t + c2 t^2 fitted to the velocity, its derivative removed from the "
+              "acceleration; all values from the corrected record, ground at rest after the last sample",
+              "Common practice (no source)"),
+)
+
+
+def compute(inputs: Inputs) -> Result:
+    time, acc, dt, notes = _record(inputs)
+    zeta = inputs.optional("damping", 0.05, minimum=0.0, maximum=0.9)
+    assert zeta is not None
+    periods = _periods(inputs)
+    marked = inputs.optional("period", None, positive=True, maximum=MAX_PERIOD)
+    corrected = core.baseline_corrected(acc, dt)
+    try:
+        spectrum = core.response_spectrum(corrected, dt, periods, zeta)
+        single = core.response_spectrum(corrected, dt, np.array([marked]), zeta) if marked else None
+    except core.WorkLimitError as error:
+        name = "periods" if inputs.has("periods") else "shortest_period"
+        raise inputs.error(name, f"too fine for this record ({error}): use longer periods or fewer") from error
+    pga, pgv, pgd = core.ground_peaks(corrected, dt)
+    peak = int(np.argmax(spectrum.psa))
+    values: dict[str, Value] = {
+        "pga": quantity("Peak ground acceleration", "acceleration", pga),
+        "pgv": quantity("Peak ground velocity", "velocity", pgv),
+        "pgd": quantity("Peak ground displacement", "length", pgd),
+        "peak_psa": quantity("Largest psa on the grid", "acceleration", float(spectrum.psa[peak])),
+        "peak_psa_period": quantity("at period", "time", float(periods[peak])),
+        "duration": quantity("Record duration", "time", float(time[-1] - time[0])),
+        "time_step": quantity("Time step", "time", dt),
+    }
+    series = {"period": periods, "sd": spectrum.sd, "sv": spectrum.sv, "psv": spectrum.psv,
+              "psa": spectrum.psa, "total_acceleration": spectrum.total_acceleration,
+              "time": time, "ground_acceleration": corrected}
+    references = REFERENCES
+    if single is not None and marked is not None:
+        values.update(_marked(single))
+        history = core.response_history(corrected, dt, marked, zeta)
+        series.update({"response_displacement": history.displacement, "response_velocity": history.velocity,
+                       "response_total_acceleration": history.total_acceleration})
+    if inputs.has("design_ground_acceleration"):
+        if not inputs.has("ground_type"):
+            raise inputs.error("ground_type", "give the ground type for the EN 1998-1 overlay")
+        shape, _, note = read_shape(inputs)
+        ag, _ = design_ground_acceleration(inputs)
+        eta = seismic.damping_correction(zeta)
+        series["design_psa"] = seismic.elastic_spectrum(periods, ag, shape, eta)
+        values["design_spectrum"] = quantity("EN 1998-1 Se over the periods", "acceleration", series["design_psa"])
+        if marked is not None:
+            design = float(seismic.elastic_spectrum(marked, ag, shape, eta))
+            values["design_spectral_acceleration"] = quantity("EN 1998-1 Se(T) at the period", "acceleration", design)
+        notes.append(Flag("info", f"overlay: {note}"))
+        references += (Reference("Horizontal elastic response spectrum", "EN 1998-1:2004 3.2.2.2, eq. 3.2-3.6"),)
+    values.update(_arrays(spectrum))
+    flags = notes + _flags(spectrum, dt, time[-1] - time[0], acc, corrected, pga)
+    return inputs.result(values, series=series, flags=tuple(flags), references=references)
+
+
+def _marked(single: core.Spectrum) -> dict[str, Value]:
+    return {
+        "sd": quantity("sd, peak relative displacement", "length", float(single.sd[0])),
+        "sv": quantity("sv, peak relative velocity", "velocity", float(single.sv[0])),
+        "psv": quantity("Pseudo-velocity omega sd", "velocity", float(single.psv[0])),
+        "psa": quantity("psa, pseudo-acceleration omega^2 sd", "acceleration", float(single.psa[0])),
+        "total_acceleration": quantity("Peak total acceleration", "acceleration",
+                                       float(single.total_acceleration[0])),
+    }
+
+
+def _arrays(spectrum: core.Spectrum) -> dict[str, Value]:
+    return {
+        "periods": quantity("Periods", "time", spectrum.period),
+        "sd_spectrum": quantity("sd over the periods", "length", spectrum.sd),
+        "sv_spectrum": quantity("sv over the periods", "velocity", spectrum.sv),
+        "psv_spectrum": quantity("Pseudo-velocity over the periods", "velocity", spectrum.psv),
+        "psa_spectrum": quantity("psa over the periods", "acceleration", spectrum.psa),
+        "total_acceleration_spectrum": quantity("Total acceleration over the periods", "acceleration",
+                                                spectrum.total_acceleration),
+    }
+
+
+def _periods(inputs: Inputs) -> np.ndarray:
+    """The period grid (s): a typed list, or log-spaced from the grid fields (defaults 0.02-10 s, 200)."""
+    grid_fields = ("shortest_period", "longest_period", "period_count")
+    if inputs.has("periods"):
+        given = next((name for name in grid_fields if inputs.has(name)), None)
+        if given:
+            raise inputs.error(given, "give either a list of periods or the grid, not both")
+        values = inputs.array("periods", positive=True)
+        if values.max() > MAX_PERIOD:
+            raise inputs.error("periods", f"periods up to {MAX_PERIOD:g} s")
+        return np.unique(values)
+    shortest = inputs.optional("shortest_period", core.DEFAULT_GRID[0], positive=True, maximum=MAX_PERIOD)
+    longest = inputs.optional("longest_period", core.DEFAULT_GRID[1], positive=True, maximum=MAX_PERIOD)
+    count = inputs.optional("period_count", core.DEFAULT_GRID[2], minimum=2, maximum=MAX_COUNT)
+    assert shortest is not None and longest is not None and count is not None
+    if longest <= shortest:
+        raise inputs.error("longest_period" if inputs.has("longest_period") else "shortest_period",
+                           "the longest period must exceed the shortest")
+    return core.period_grid(shortest, longest, int(count))
+
+
+def _record(inputs: Inputs) -> tuple[np.ndarray, np.ndarray, float, list[Flag]]:
+    """Time (s), ground acceleration (m/s^2), time step (s) and reading notes of the file."""
+    unit = inputs.text("signal_unit") if inputs.has("signal_unit") else None
+    if unit is None:
+        raise inputs.error("signal_unit", "give the unit of the acceleration column")
+    time, signal = _read_columns(inputs)
+    acc = signal * SIGNAL_UNITS[unit]
+    dt = float(time[1] - time[0])
+    return time, acc, dt, []
+
+
+def _read_columns(inputs: Inputs) -> tuple[np.ndarray, np.ndarray]:
+    """Minimal reader of numeric text columns (comma, semicolon, tab or space separated)."""
+    path = inputs.text("file")
+    rate = inputs.optional("sample_rate", None, positive=True, maximum=1e6)
+    time_column = int(inputs.optional("time_column", 1, minimum=1, maximum=100) or 1) - 1
+    signal_column = int(inputs.optional("signal_column", 1 if rate else 2, minimum=1, maximum=100) or 2) - 1
+    try:
+        with open(path, encoding="utf-8-sig") as handle:
+            rows = [line.replace(";", ",").replace("\t", ",") for line in handle
+                    if line.strip() and line.lstrip()[0] in "+-.0123456789"]
+        data = np.loadtxt(rows, delimiter=",", ndmin=2)
+    except (OSError, UnicodeDecodeError) as error:
+        raise inputs.error("file", f"cannot read the file ({error.__class__.__name__})") from error
+    except ValueError as error:
+        raise inputs.error("file", f"not numeric columns ({error})") from error
+    needed = max(signal_column, -1 if rate else time_column)
+    if data.shape[0] < 32 or data.shape[1] <= needed or not np.all(np.isfinite(data)):
+        raise inputs.error("file", "expected at least 32 rows of finite numbers in the columns asked for")
+    signal = data[:, signal_column]
+    if rate:
+        return np.arange(len(signal)) / rate, signal
+    time = data[:, time_column]
+    steps = np.diff(time)
+    if np.any(steps <= 0) or np.ptp(steps) > 0.01 * np.median(steps):
+        raise inputs.error("file", "the time column must rise in equal steps")
+    return time, signal
+
+
+def _flags(spectrum: core.Spectrum, dt: float, duration: float, acc: np.ndarray, corrected: np.ndarray,
+           pga: float) -> list[Flag]:
+    flags = []
+    fine = spectrum.substeps > 1
+    if np.any(fine):
+        flags.append(Flag("info", f"periods up to {spectrum.period[fine].max():.3g} s analysed with up to "
+                                  f"{spectrum.substeps.max()} sub-steps per record step (step <= T/20)"))
+    if spectrum.period.max() > duration / 2.0:
+        flags.append(Flag("caution", f"periods above {duration / 2:.3g} s exceed half the record length: "
+                                     "few cycles behind those values"))
+    if spectrum.period.min() < 2.0 * dt:
+        flags.append(Flag("info", f"periods below 2 dt = {2 * dt:.3g} s respond to the record as sampled "
+                                  "(linear between samples)"))
+    drift = float(np.max(np.abs(acc - corrected)))
+    if pga == 0.0:
+        flags.append(Flag("warning", "the record is all zero after baseline correction"))
+    elif drift > 0.01 * pga:
+        flags.append(Flag("caution", f"baseline removed: up to {drift / pga:.1%} of the peak acceleration"))
+    return flags
+
+
+SPEC = CheckSpec(
+    id="spectrum",
+    title="Response spectrum",
+    summary="response spectrum of an accelerogram (sd, sv, psv, psa, total acceleration) with pga, pgv, pgd",
+    fields=FIELDS,
+    compute=compute,
+    caution=SEISMIC_CAUTION,
+)
