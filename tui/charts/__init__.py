@@ -18,3 +18,14 @@ DrawFunction = Callable[[Any, Result, str], None]
 
 CHARTS: dict[str, tuple[DrawFunction, ...]] = {}
 """Check id -> its chart panels, in the order they are shown."""
+
+
+def _register_seismic() -> None:
+    from tui.charts import design_spectrum, period, spectrum
+
+    CHARTS["period"] = (period.draw_period,)
+    CHARTS["design-spectrum"] = (design_spectrum.draw_spectrum,)
+    CHARTS["spectrum"] = (spectrum.draw_psa, spectrum.draw_record)
+
+
+_register_seismic()
