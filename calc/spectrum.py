@@ -40,7 +40,7 @@ TAYLOR_TERMS = 24
 """Terms of the Taylor series of the step's matrix exponential."""
 PERIODS_PER_PRODUCT = 4
 """Periods evaluated together in one matrix product."""
-MAX_WORK = 3e8
+MAX_WORK = 1e8
 """Largest number of period-steps (sum over periods of analysed steps) accepted."""
 DEFAULT_GRID = (0.02, 10.0, 200)
 """Default period grid: shortest (s), longest (s), number of log-spaced periods."""

@@ -52,7 +52,7 @@ DESIGN_REFERENCE = Reference("Design spectrum for elastic analysis, lower bound 
 
 
 def read_shape(inputs: Inputs) -> tuple[seismic.SpectrumShape, str, str]:
-    """Spectrum shape from the ground and spectrum type, with any overrides; also the type and a note of the set used."""
+    """Spectrum shape from ground and spectrum type with any overrides; also the type and the set used."""
     ground = inputs.text("ground_type")
     kind = inputs.text("spectrum_type") if inputs.has("spectrum_type") else "1"
     base = seismic.recommended_shape(kind, ground)
@@ -93,7 +93,8 @@ def compute(inputs: Inputs) -> Result:
     se = float(seismic.elastic_spectrum(period, ag, shape, eta))
     values: dict[str, Value] = {
         "spectral_acceleration": quantity("Se(T), elastic", "acceleration", se),
-        "spectral_displacement": quantity("SDe(T), elastic", "length", float(seismic.spectral_displacement(se, period))),
+        "spectral_displacement": quantity("SDe(T), elastic", "length",
+                                          float(seismic.spectral_displacement(se, period))),
         "branch": word("Branch", seismic.branch(period, shape)),
         "design_ground_acceleration": quantity("ag = gamma_I agR", "acceleration", ag),
         "eta": quantity("Damping correction eta", "number", eta),
@@ -104,7 +105,7 @@ def compute(inputs: Inputs) -> Result:
         "parameter_set": word("Parameters", note),
     }
     flags = _flags(inputs, period, zeta, eta, importance, shape)
-    references = REFERENCES
+    references: tuple[Reference, ...] = REFERENCES
     end = max(seismic.SPECTRUM_END, 1.25 * period)
     grid = np.unique(np.concatenate([np.linspace(0.0, end, 241), [shape.tb, shape.tc, shape.td, period]]))
     series = {"period": grid, "spectral_acceleration": seismic.elastic_spectrum(grid, ag, shape, eta)}

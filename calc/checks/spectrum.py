@@ -14,6 +14,8 @@ from calc.units import STANDARD_GRAVITY
 
 MAX_PERIOD = 20.0
 """Longest period accepted (s)."""
+MIN_PERIOD = 0.001
+"""Shortest period accepted (s)."""
 MAX_COUNT = 500
 """Most periods in a grid."""
 SIGNAL_UNITS = {"g": STANDARD_GRAVITY, "m/s^2": 1.0, "cm/s^2": 0.01}
@@ -55,7 +57,7 @@ def compute(inputs: Inputs) -> Result:
     zeta = inputs.optional("damping", 0.05, minimum=0.0, maximum=0.9)
     assert zeta is not None
     periods = _periods(inputs)
-    marked = inputs.optional("period", None, positive=True, maximum=MAX_PERIOD)
+    marked = inputs.optional("period", None, minimum=MIN_PERIOD, maximum=MAX_PERIOD)
     corrected = core.baseline_corrected(acc, dt)
     try:
         spectrum = core.response_spectrum(corrected, dt, periods, zeta)
@@ -77,7 +79,7 @@ def compute(inputs: Inputs) -> Result:
     series = {"period": periods, "sd": spectrum.sd, "sv": spectrum.sv, "psv": spectrum.psv,
               "psa": spectrum.psa, "total_acceleration": spectrum.total_acceleration,
               "time": time, "ground_acceleration": corrected}
-    references = REFERENCES
+    references: tuple[Reference, ...] = REFERENCES
     if single is not None and marked is not None:
         values.update(_marked(single))
         history = core.response_history(corrected, dt, marked, zeta)
@@ -132,10 +134,10 @@ def _periods(inputs: Inputs) -> np.ndarray:
         if given:
             raise inputs.error(given, "give either a list of periods or the grid, not both")
         values = inputs.array("periods", positive=True)
-        if values.max() > MAX_PERIOD:
-            raise inputs.error("periods", f"periods up to {MAX_PERIOD:g} s")
+        if values.max() > MAX_PERIOD or values.min() < MIN_PERIOD:
+            raise inputs.error("periods", f"periods from {MIN_PERIOD:g} s to {MAX_PERIOD:g} s")
         return np.unique(values)
-    shortest = inputs.optional("shortest_period", core.DEFAULT_GRID[0], positive=True, maximum=MAX_PERIOD)
+    shortest = inputs.optional("shortest_period", core.DEFAULT_GRID[0], minimum=MIN_PERIOD, maximum=MAX_PERIOD)
     longest = inputs.optional("longest_period", core.DEFAULT_GRID[1], positive=True, maximum=MAX_PERIOD)
     count = inputs.optional("period_count", core.DEFAULT_GRID[2], minimum=2, maximum=MAX_COUNT)
     assert shortest is not None and longest is not None and count is not None
@@ -166,6 +168,8 @@ def _read_columns(inputs: Inputs) -> tuple[np.ndarray, np.ndarray]:
         with open(path, encoding="utf-8-sig") as handle:
             rows = [line.replace(";", ",").replace("\t", ",") for line in handle
                     if line.strip() and line.lstrip()[0] in "+-.0123456789"]
+        if not rows:
+            raise inputs.error("file", "no rows of numbers")
         data = np.loadtxt(rows, delimiter=",", ndmin=2)
     except (OSError, UnicodeDecodeError) as error:
         raise inputs.error("file", f"cannot read the file ({error.__class__.__name__})") from error
