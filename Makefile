@@ -15,7 +15,7 @@ run: $(STAMP)
 	$(VENV)/bin/fieldmode
 
 test: $(STAMP)
-	$(PY) -m pytest
+	$(PY) -m pytest -q
 
 lint: $(STAMP)
 	$(VENV)/bin/ruff check calc tui tests

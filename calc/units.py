@@ -10,12 +10,15 @@ from __future__ import annotations
 
 import math
 import re
+import tokenize
 from dataclasses import dataclass
 
+import numpy as np
 import pint
 
 from calc.kinds import KINDS, Kind
 
+ureg: pint.UnitRegistry
 try:
     ureg = pint.UnitRegistry(cache_folder=":auto:")
 except OSError:  # no writable cache folder: build the registry in memory
@@ -35,6 +38,7 @@ MAX_MAGNITUDE = 1e15
 _NUMBER = re.compile(r"^\s*([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d{1,3})?)\s*(.*?)\s*$")
 _UNIT_CHARS = re.compile(r"^[A-Za-z0-9_/*. %()^\-]*$")
 _SUPERSCRIPTS = str.maketrans({"²": "^2", "³": "^3", "⁴": "^4", "·": "*", "×": "*", "µ": "u", "μ": "u"})
+_UNIT_START = re.compile(r"^(?:1\s*/\s*)?[A-Za-z%(]")
 _POWER = re.compile(r"(\*\*|\^)")
 _ANGULAR = re.compile(r"\brad(ians?)?\b")
 
@@ -179,7 +183,9 @@ def _rad_free_factor(units: pint.Unit) -> pint.Quantity:
 
 def _safe_units(text: str, name: str, unit_text: str, spec: Kind) -> pint.Unit:
     """Parse a unit expression after refusing anything that could make pint work hard."""
-    if not _UNIT_CHARS.match(unit_text):
+    if not unit_text:
+        return ureg.dimensionless
+    if not _UNIT_CHARS.match(unit_text) or not _UNIT_START.match(unit_text):
         raise InputError(name, text, "unexpected characters in the unit", spec.example)
     if re.search(r"(\*\*|\^)\s*-?\d+\s*(\*\*|\^)", unit_text):
         raise InputError(name, text, "a power of a power is not a unit", spec.example)
@@ -193,7 +199,7 @@ def _safe_units(text: str, name: str, unit_text: str, spec: Kind) -> pint.Unit:
     try:
         return ureg.parse_units(cleaned)
     except (pint.errors.PintError, AttributeError, TypeError, ValueError, SyntaxError,
-            KeyError, IndexError, ZeroDivisionError) as error:
+            KeyError, IndexError, ZeroDivisionError, tokenize.TokenError) as error:
         raise InputError(name, text, f"unknown unit {unit_text!r}", spec.example) from error
 
 
@@ -202,6 +208,8 @@ def format_number(value: float, digits: int = 4) -> str:
     if value == 0 or not math.isfinite(value):
         return f"{value:g}"
     exponent = math.floor(math.log10(abs(value)))
+    if abs(round(value, digits - 1 - exponent)) >= 10.0 ** (exponent + 1):
+        exponent += 1  # rounding carried into the next decade: 0.099999 -> 0.1000
     if -4 <= exponent < 6:
         decimals = max(0, digits - 1 - exponent)
         rounded = round(value, decimals)
@@ -233,7 +241,7 @@ def to_si(quantity: pint.Quantity, kind: str) -> float:
     return float(quantity.to(KINDS[kind].si).magnitude)
 
 
-def si_quantity(value: float, kind: str) -> pint.Quantity:
+def si_quantity(value: float | np.ndarray, kind: str) -> pint.Quantity:
     """Wrap an SI magnitude (float or array) as a quantity of ``kind``."""
     return Q_(value, KINDS[kind].si)
 

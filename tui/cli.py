@@ -127,6 +127,8 @@ def main(argv: Sequence[str] | None = None) -> int:
     """Console entry point: run and turn failures into the exit-status contract."""
     try:
         return run(sys.argv[1:] if argv is None else argv)
+    except SystemExit as done:  # argparse: --help, --version, or a usage error already reported
+        return done.code if isinstance(done.code, int) else EXIT_INPUT
     except InputError as error:
         print(f"fieldmode: {error}", file=sys.stderr)
         return EXIT_INPUT

@@ -2,11 +2,14 @@
 
 from __future__ import annotations
 
-from calc.checks import design_spectrum, period, sdof, spectrum
+from calc.checks import design_spectrum, forced, isolate, member, period, sdof, spectrum
 from calc.spec import CheckSpec
 
 SPECS: tuple[CheckSpec, ...] = (
     sdof.SPEC,
+    member.SPEC,
+    forced.SPEC,
+    isolate.SPEC,
     period.SPEC,
     design_spectrum.SPEC,
     spectrum.SPEC,

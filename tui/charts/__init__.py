@@ -12,20 +12,17 @@ from collections.abc import Callable
 from typing import Any
 
 from calc.result import Result
+from tui.charts import design_spectrum, forced, isolate, period, sdof, spectrum
 
 DrawFunction = Callable[[Any, Result, str], None]
 """draw(plt, result, system) where system is 'si' or 'us'."""
 
-CHARTS: dict[str, tuple[DrawFunction, ...]] = {}
+CHARTS: dict[str, tuple[DrawFunction, ...]] = {
+    "sdof": (sdof.draw_free_response,),
+    "forced": (forced.draw_amplification, forced.draw_phase),
+    "isolate": (isolate.draw_transmissibility,),
+    "period": (period.draw_period,),
+    "design-spectrum": (design_spectrum.draw_spectrum,),
+    "spectrum": (spectrum.draw_psa, spectrum.draw_record),
+}
 """Check id -> its chart panels, in the order they are shown."""
-
-
-def _register_seismic() -> None:
-    from tui.charts import design_spectrum, period, spectrum
-
-    CHARTS["period"] = (period.draw_period,)
-    CHARTS["design-spectrum"] = (design_spectrum.draw_spectrum,)
-    CHARTS["spectrum"] = (spectrum.draw_psa, spectrum.draw_record)
-
-
-_register_seismic()
