@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+import os
+
 import numpy as np
 
 from calc import seismic
@@ -14,6 +16,8 @@ from calc.units import STANDARD_GRAVITY
 
 MAX_PERIOD = 20.0
 """Longest period accepted (s)."""
+MAX_FILE_BYTES = 64 * 2**20
+"""Largest accelerogram file read (bytes)."""
 MIN_PERIOD = 0.001
 """Shortest period accepted (s)."""
 MAX_COUNT = 500
@@ -165,6 +169,8 @@ def _read_columns(inputs: Inputs) -> tuple[np.ndarray, np.ndarray]:
     time_column = int(inputs.optional("time_column", 1, minimum=1, maximum=100) or 1) - 1
     signal_column = int(inputs.optional("signal_column", 1 if rate else 2, minimum=1, maximum=100) or 2) - 1
     try:
+        if not os.path.isfile(path) or os.path.getsize(path) > MAX_FILE_BYTES:
+            raise inputs.error("file", f"not a readable file of at most {MAX_FILE_BYTES // 2**20} MiB")
         with open(path, encoding="utf-8-sig") as handle:
             rows = [line.replace(";", ",").replace("\t", ",") for line in handle
                     if line.strip() and line.lstrip()[0] in "+-.0123456789"]
