@@ -159,13 +159,17 @@ def _record(inputs: Inputs) -> tuple[np.ndarray, np.ndarray, float, list[Flag]]:
     time, signal = _read_columns(inputs)
     acc = signal * SIGNAL_UNITS[unit]
     dt = float(time[1] - time[0])
+    if not 1e-5 <= dt <= 1.0:
+        raise inputs.error("file", f"time step {dt:.3g} s: expected 0.00001 s to 1 s")
+    if np.max(np.abs(acc)) > 1e4:
+        raise inputs.error("file", "accelerations above 10000 m/s^2: check the signal unit")
     return time, acc, dt, []
 
 
 def _read_columns(inputs: Inputs) -> tuple[np.ndarray, np.ndarray]:
     """Minimal reader of numeric text columns (comma, semicolon, tab or space separated)."""
     path = inputs.text("file")
-    rate = inputs.optional("sample_rate", None, positive=True, maximum=1e6)
+    rate = inputs.optional("sample_rate", None, minimum=1.0, maximum=1e5)
     time_column = int(inputs.optional("time_column", 1, minimum=1, maximum=100) or 1) - 1
     signal_column = int(inputs.optional("signal_column", 1 if rate else 2, minimum=1, maximum=100) or 2) - 1
     try:
