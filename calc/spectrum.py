@@ -35,7 +35,9 @@ BLOCK = 16
 CHUNK_VALUES = 1_000_000
 """Response values computed per matrix product (bounds memory to a few MB)."""
 SCAN_BLOCK = 32
-"""Block starts handled per group when solving the block-to-block recurrence."""
+"""Largest group of block starts when solving the block-to-block recurrence."""
+SCAN_DIRECT = 12
+"""Block starts solved by a direct loop at the top level of that recurrence."""
 TAYLOR_TERMS = 24
 """Terms of the Taylor series of the step's matrix exponential."""
 PERIODS_PER_PRODUCT = 4
@@ -156,18 +158,17 @@ class _Group:
         self.outputs[:, 2, 0] = -omega**2
         self.outputs[:, 2, 1] = -2.0 * zeta * omega
         self.inputs = np.lib.stride_tricks.sliding_window_view(self.acc, size + 1)[::size].T.copy()
-        ends = (forced[:, size].transpose(0, 2, 1).reshape(2 * count, size + 1) @ self.inputs)
-        ends = ends.reshape(count, 2, -1)
-        states = _scan(powers[:, size], ends)
-        self.starts, self.final = states[:, :, :-1], states[:, :, -1]
+        ends = self.inputs.T @ forced[:, size].transpose(1, 0, 2).reshape(size + 1, 2 * count)
+        states = _scan(powers[:, size], ends.reshape(-1, count, 2).transpose(1, 0, 2))
+        self.starts, self.final = states[:, :-1], states[:, -1]
 
     starts: np.ndarray
-    """(P, 2, blocks): state at the start of each block."""
+    """(P, blocks, 2): state at the start of each block."""
     final: np.ndarray
     """(P, 2): state after the last block; the ground is at rest from there on."""
 
-    def responses(self, periods: slice, blocks: slice) -> np.ndarray:
-        """u, u', total acceleration (c, 3, BLOCK, b) for a slice of periods and blocks."""
+    def responses(self, periods: slice, blocks: slice, dtype: type = np.float64) -> np.ndarray:
+        """u, u', total acceleration (c, 3, BLOCK, b) for a slice of periods and blocks, in ``dtype``."""
         size = BLOCK
         outputs = self.outputs[periods]
         count = len(outputs)
@@ -176,8 +177,10 @@ class _Group:
         free = np.einsum("pos,pmst->pomt", outputs, self.powers[periods, :size])
         for p in range(count):
             weights[p, ..., size + 1 + 2 * p: size + 3 + 2 * p] = free[p]
-        right = np.concatenate([self.inputs[:, blocks], self.starts[periods, :, blocks].reshape(2 * count, -1)])
-        return (weights.reshape(count * 3 * size, -1) @ right).reshape(count, 3, size, -1)
+        starts = self.starts[periods, blocks].transpose(0, 2, 1).reshape(2 * count, -1)
+        right = np.concatenate([self.inputs[:, blocks], starts])
+        product = weights.reshape(count * 3 * size, -1).astype(dtype) @ right.astype(dtype)
+        return product.reshape(count, 3, size, -1)
 
     def states_at(self, step: np.ndarray) -> np.ndarray:
         """State (u, u') at analysis steps ``step`` (P, n) -> (P, n, 2)."""
@@ -185,7 +188,7 @@ class _Group:
         block = np.minimum(step // size, self.blocks - 1)
         inside = step - block * size
         rows = np.arange(len(self.omega))[:, None]
-        start = self.starts[rows, :, block]
+        start = self.starts[rows, block]
         state = (self.powers[rows, inside] @ start[..., None])[..., 0]
         window = self.acc[block[..., None] * size + np.arange(size + 1)]
         return state + np.einsum("pnis,pni->pns", self.forced[rows, inside], window)
@@ -201,32 +204,36 @@ class _Group:
 
 
 def _scan(transition: np.ndarray, drive: np.ndarray) -> np.ndarray:
-    """States s[0..n] of s[j+1] = M s[j] + f[j], s[0] = 0, per period: M (P, 2, 2), f (P, 2, n) -> (P, 2, n + 1).
+    """States s[0..n] of s[j+1] = M s[j] + f[j], s[0] = 0, per period: M (P, 2, 2), f (P, n, 2) -> (P, n + 1, 2).
 
-    The same regrouping as the time steps: drives are taken ``SCAN_BLOCK`` at a time, the states at
-    the group starts come from this function one level up, the states inside from one matrix
-    product per period. A Python loop runs only on the top level (at most ``SCAN_BLOCK`` groups).
+    The same regrouping as the time steps: drives are taken in groups of about sqrt(n) (at most
+    ``SCAN_BLOCK``), the states at the group starts come from this function one level up, the
+    states inside from one matrix product per period. A Python loop runs only on the top level,
+    over at most ``SCAN_DIRECT`` drives.
     """
-    count, _, n = drive.shape
-    size = SCAN_BLOCK
-    if n <= size:
-        states = np.zeros((count, 2, n + 1))
+    count, n, _ = drive.shape
+    if n <= SCAN_DIRECT:
+        states = np.zeros((count, n + 1, 2))
         for j in range(n):
-            states[:, :, j + 1] = (transition @ states[:, :, j, None])[..., 0] + drive[:, :, j]
+            states[:, j + 1] = (transition @ states[:, j, :, None])[..., 0] + drive[:, j]
         return states
+    size = min(SCAN_BLOCK, math.ceil(math.sqrt(n)))
     groups = -(-n // size)
-    padded = np.zeros((count, 2, groups * size))
-    padded[:, :, :n] = drive
+    padded = np.zeros((count, groups * size, 2))
+    padded[:, :n] = drive
+    grouped = np.empty((count, groups, 2 * size + 2))
+    grouped[:, :, : 2 * size] = padded.reshape(count, groups, 2 * size)
     powers = _powers(transition, size)
-    lag = np.arange(size)[:, None] - np.arange(size)[None, :]
-    weights = np.where(lag >= 0, 1.0, 0.0)[None, :, :, None, None] * powers[:, np.clip(lag, 0, size)]
-    weights = weights.transpose(0, 1, 3, 2, 4).reshape(count, 2 * size, 2 * size)
-    grouped = padded.reshape(count, 2, groups, size).transpose(0, 3, 1, 2).reshape(count, 2 * size, groups)
-    forced = (weights @ grouped).reshape(count, size, 2, groups)
-    starts = _scan(powers[:, size], forced[:, -1])[:, :, :-1]
-    free = (powers[:, 1:, :, 0, None] * starts[:, None, None, 0] + powers[:, 1:, :, 1, None] * starts[:, None, None, 1])
-    inside = (forced + free).transpose(0, 2, 3, 1).reshape(count, 2, groups * size)
-    return np.concatenate([np.zeros((count, 2, 1)), inside[:, :, :n]], axis=2)
+    shifted = np.concatenate([np.zeros((count, size - 1, 2, 2)), powers[:, :size]], axis=1)
+    toeplitz = np.lib.stride_tricks.sliding_window_view(shifted, size, axis=1)[..., ::-1]
+    weights = np.empty((count, 2 * size + 2, 2 * size))
+    weights[:, : 2 * size] = toeplitz.transpose(0, 4, 3, 1, 2).reshape(count, 2 * size, 2 * size)
+    weights[:, 2 * size:] = powers[:, 1:].transpose(0, 3, 1, 2).reshape(count, 2, 2 * size)
+    ends = grouped[:, :, : 2 * size] @ weights[:, : 2 * size, 2 * size - 2:]
+    grouped[:, :, 2 * size:] = _scan(powers[:, size], ends)[:, :-1]
+    states = np.zeros((count, groups * size + 1, 2))
+    states[:, 1:] = (grouped @ weights).reshape(count, groups * size, 2)
+    return states[:, : n + 1]
 
 
 def _powers(transition: np.ndarray, size: int) -> np.ndarray:
@@ -239,12 +246,16 @@ def _powers(transition: np.ndarray, size: int) -> np.ndarray:
 
 
 def _extremes(group: _Group) -> np.ndarray:
-    """Analysis steps of the largest and smallest value of each output: (P, 3, 2)."""
+    """Analysis steps of the largest and smallest value of each output: (P, 3, 2).
+
+    The search runs in single precision (twice the speed); the peaks are then evaluated in double
+    precision at the steps found, so a choice between samples equal to 1e-7 is all it can change.
+    """
     count = len(group.omega)
     best = np.full((count, 3, 2), -np.inf)
     where = np.zeros((count, 3, 2), dtype=np.int64)
     for periods, blocks in group.chunks():
-        values = group.responses(periods, blocks)
+        values = group.responses(periods, blocks, np.float32)
         flat = values.reshape(values.shape[0], 3, -1)
         width = values.shape[-1]
         for side, (pick, sign) in enumerate(((np.argmax, 1.0), (np.argmin, -1.0))):
