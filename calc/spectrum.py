@@ -158,8 +158,9 @@ class _Group:
         self.outputs[:, 2, 0] = -omega**2
         self.outputs[:, 2, 1] = -2.0 * zeta * omega
         self.inputs = np.lib.stride_tricks.sliding_window_view(self.acc, size + 1)[::size].T.copy()
-        ends = self.inputs.T @ forced[:, size].transpose(1, 0, 2).reshape(size + 1, 2 * count)
-        states = _scan(powers[:, size], ends.reshape(-1, count, 2).transpose(1, 0, 2))
+        self._maps: dict[type, tuple[np.ndarray, np.ndarray]] = {}
+        ends = forced[:, size].transpose(0, 2, 1).reshape(2 * count, size + 1) @ self.inputs
+        states = _scan(powers[:, size], np.ascontiguousarray(ends.reshape(count, 2, -1).transpose(0, 2, 1)))
         self.starts, self.final = states[:, :-1], states[:, -1]
 
     starts: np.ndarray
@@ -168,19 +169,31 @@ class _Group:
     """(P, 2): state after the last block; the ground is at rest from there on."""
 
     def responses(self, periods: slice, blocks: slice, dtype: type = np.float64) -> np.ndarray:
-        """u, u', total acceleration (c, 3, BLOCK, b) for a slice of periods and blocks, in ``dtype``."""
+        """u, u', total acceleration (c, 3, BLOCK, b) for a slice of periods and blocks, in ``dtype``.
+
+        One matrix product: rows are (period, output, step in block); columns the block's inputs
+        followed by each period's start state (block-diagonal, so periods share the inputs).
+        """
         size = BLOCK
-        outputs = self.outputs[periods]
-        count = len(outputs)
-        weights = np.zeros((count, 3, size, size + 1 + 2 * count))
-        weights[..., : size + 1] = np.einsum("pos,pmis->pomi", outputs, self.forced[periods, :size])
-        free = np.einsum("pos,pmst->pomt", outputs, self.powers[periods, :size])
-        for p in range(count):
-            weights[p, ..., size + 1 + 2 * p: size + 3 + 2 * p] = free[p]
-        starts = self.starts[periods, blocks].transpose(0, 2, 1).reshape(2 * count, -1)
-        right = np.concatenate([self.inputs[:, blocks], starts])
-        product = weights.reshape(count * 3 * size, -1).astype(dtype) @ right.astype(dtype)
-        return product.reshape(count, 3, size, -1)
+        forced, free = self.maps(dtype)
+        count = len(forced[periods])
+        weights = np.zeros((count, 3, size, size + 1 + 2 * count), dtype)
+        weights[..., : size + 1] = forced[periods]
+        right = np.empty((size + 1 + 2 * count, len(range(self.blocks)[blocks])), dtype)
+        right[: size + 1] = self.inputs[:, blocks]
+        for p, row in enumerate(range(len(self.omega))[periods]):
+            weights[p, ..., size + 1 + 2 * p: size + 3 + 2 * p] = free[row]
+            right[size + 1 + 2 * p: size + 3 + 2 * p] = self.starts[row, blocks].T
+        return (weights.reshape(count * 3 * size, -1) @ right).reshape(count, 3, size, -1)
+
+    def maps(self, dtype: type) -> tuple[np.ndarray, np.ndarray]:
+        """Output maps (P, 3, BLOCK, BLOCK + 1) from a block's inputs and (P, 3, BLOCK, 2) from its start state."""
+        if dtype not in self._maps:
+            size = BLOCK
+            forced = np.einsum("pos,pmis->pomi", self.outputs, self.forced[:, :size])
+            free = np.einsum("pos,pmst->pomt", self.outputs, self.powers[:, :size])
+            self._maps[dtype] = (forced.astype(dtype), free.astype(dtype))
+        return self._maps[dtype]
 
     def states_at(self, step: np.ndarray) -> np.ndarray:
         """State (u, u') at analysis steps ``step`` (P, n) -> (P, n, 2)."""
@@ -219,10 +232,13 @@ def _scan(transition: np.ndarray, drive: np.ndarray) -> np.ndarray:
         return states
     size = min(SCAN_BLOCK, math.ceil(math.sqrt(n)))
     groups = -(-n // size)
-    padded = np.zeros((count, groups * size, 2))
-    padded[:, :n] = drive
     grouped = np.empty((count, groups, 2 * size + 2))
-    grouped[:, :, : 2 * size] = padded.reshape(count, groups, 2 * size)
+    if groups * size == n:
+        grouped[:, :, : 2 * size] = drive.reshape(count, groups, 2 * size)
+    else:
+        padded = np.zeros((count, groups * size, 2))
+        padded[:, :n] = drive
+        grouped[:, :, : 2 * size] = padded.reshape(count, groups, 2 * size)
     powers = _powers(transition, size)
     shifted = np.concatenate([np.zeros((count, size - 1, 2, 2)), powers[:, :size]], axis=1)
     toeplitz = np.lib.stride_tricks.sliding_window_view(shifted, size, axis=1)[..., ::-1]
