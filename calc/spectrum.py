@@ -177,9 +177,9 @@ class _Group:
         size = BLOCK
         forced, free = self.maps(dtype)
         count = len(forced[periods])
-        weights = np.zeros((count, 3, size, size + 1 + 2 * count), dtype)
+        weights: np.ndarray = np.zeros((count, 3, size, size + 1 + 2 * count), dtype)
         weights[..., : size + 1] = forced[periods]
-        right = np.empty((size + 1 + 2 * count, len(range(self.blocks)[blocks])), dtype)
+        right: np.ndarray = np.empty((size + 1 + 2 * count, len(range(self.blocks)[blocks])), dtype)
         right[: size + 1] = self.inputs[:, blocks]
         for p, row in enumerate(range(len(self.omega))[periods]):
             weights[p, ..., size + 1 + 2 * p: size + 3 + 2 * p] = free[row]
