@@ -1,6 +1,7 @@
-"""The invented demo accelerogram: filtered white noise under an envelope, from a fixed seed.
+"""Ground motion records: baseline correction, peak ground values, and the invented demo record.
 
-No recorded earthquake is used. Gaussian white noise (numpy PCG64, seed ``SEED``) is passed
+The demo accelerogram is filtered white noise under an envelope, from a fixed seed; no recorded
+earthquake is used. Gaussian white noise (numpy PCG64, seed ``SEED``) is passed
 through a Kanai-Tajimi ground filter and a Clough-Penzien high-pass filter, multiplied by a
 Saragoni-Hart type envelope, baseline-corrected and scaled to a peak of ``PEAK_G`` g.
 Regenerate the shipped file with ``python -m calc.groundmotion [PATH]``.
@@ -46,8 +47,6 @@ def synthetic_motion(parameters: MotionParameters = MotionParameters(), seed: in
     """Time (s) and ground acceleration (g) of the invented demo motion."""
     from scipy import signal
 
-    from calc.spectrum import baseline_corrected
-
     p = parameters
     count = int(round(p.duration / p.time_step)) + 1
     time = np.arange(count) * p.time_step
@@ -63,6 +62,35 @@ def synthetic_motion(parameters: MotionParameters = MotionParameters(), seed: in
     envelope = ratio**p.envelope_shape * np.exp(p.envelope_shape * (1.0 - ratio))
     acceleration = baseline_corrected(filtered * envelope, p.time_step)
     return time, acceleration * (peak_g / np.max(np.abs(acceleration)))
+
+
+def baseline_corrected(acc: np.ndarray, dt: float) -> np.ndarray:
+    """Acceleration (m/s^2) less the baseline: the derivative c1 + 2 c2 t of the least-squares fit
+    c1 t + c2 t^2 to the velocity (velocity by the trapezoid rule, zero at the first sample)."""
+    acc = np.asarray(acc, dtype=float)
+    t = np.arange(len(acc)) * dt
+    velocity = _cumulative(acc, dt)
+    basis = np.stack([t, t**2], axis=1)
+    (c1, c2), *_ = np.linalg.lstsq(basis, velocity, rcond=None)
+    return acc - (c1 + 2.0 * c2 * t)
+
+
+def _cumulative(acc: np.ndarray, dt: float) -> np.ndarray:
+    """Velocity (m/s) of a piecewise-linear acceleration, zero at the first sample (trapezoid rule, exact)."""
+    return np.concatenate([[0.0], np.cumsum((acc[1:] + acc[:-1]) * (0.5 * dt))])
+
+
+def ground_peaks(acc: np.ndarray, dt: float) -> tuple[float, float, float]:
+    """Peak ground acceleration (m/s^2), velocity (m/s) and displacement (m) of ``acc`` as given.
+
+    Velocity by the trapezoid rule and displacement by exact integration of the piecewise-linear
+    acceleration, both from rest at the first sample.
+    """
+    acc = np.asarray(acc, dtype=float)
+    velocity = _cumulative(acc, dt)
+    increments = velocity[:-1] * dt + (2.0 * acc[:-1] + acc[1:]) * (dt * dt / 6.0)
+    displacement = np.concatenate([[0.0], np.cumsum(increments)])
+    return float(np.max(np.abs(acc))), float(np.max(np.abs(velocity))), float(np.max(np.abs(displacement)))
 
 
 def demo_path() -> str:

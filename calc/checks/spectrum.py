@@ -6,7 +6,7 @@ import os
 
 import numpy as np
 
-from calc import seismic
+from calc import groundmotion, seismic
 from calc import spectrum as core
 from calc.checks.design_spectrum import GROUND_FIELDS, design_ground_acceleration, read_shape
 from calc.groundmotion import demo_path
@@ -62,14 +62,14 @@ def compute(inputs: Inputs) -> Result:
     assert zeta is not None
     periods = _periods(inputs)
     marked = inputs.optional("period", None, minimum=MIN_PERIOD, maximum=MAX_PERIOD)
-    corrected = core.baseline_corrected(acc, dt)
+    corrected = groundmotion.baseline_corrected(acc, dt)
     try:
         spectrum = core.response_spectrum(corrected, dt, periods, zeta)
         single = core.response_spectrum(corrected, dt, np.array([marked]), zeta) if marked else None
     except core.WorkLimitError as error:
         name = "periods" if inputs.has("periods") else "shortest_period"
         raise inputs.error(name, f"too fine for this record ({error}): use longer periods or fewer") from error
-    pga, pgv, pgd = core.ground_peaks(corrected, dt)
+    pga, pgv, pgd = groundmotion.ground_peaks(corrected, dt)
     peak = int(np.argmax(spectrum.psa))
     values: dict[str, Value] = {
         "pga": quantity("Peak ground acceleration", "acceleration", pga),

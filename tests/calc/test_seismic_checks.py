@@ -11,6 +11,7 @@ import pytest
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
+from calc import groundmotion
 from calc import spectrum as core
 from calc.checks import BY_ID
 from calc.result import SEISMIC_CAUTION
@@ -103,7 +104,7 @@ def test_spectrum_check_matches_core(tmp_path: Path) -> None:
     acc_g = 0.1 * rng.standard_normal(800)
     path = write_record(tmp_path / "motion.csv", acc_g, dt)
     result = SPECTRUM.evaluate({"file": str(path), "signal_unit": "g", "period": "0.5 s", "damping": "3 %"})
-    corrected = core.baseline_corrected(np.round(acc_g, 7) * G0, dt)
+    corrected = groundmotion.baseline_corrected(np.round(acc_g, 7) * G0, dt)
     single = core.response_spectrum(corrected, dt, np.array([0.5]), 0.03)
     assert si(result, "psa") == pytest.approx(float(single.psa[0]), rel=1e-9)
     assert si(result, "pga") == pytest.approx(np.abs(corrected).max(), rel=1e-9)
