@@ -28,7 +28,7 @@ def test_demo_charts_draw_with_marked_period(check: str, system: str) -> None:
     pictures = build(check, BY_ID[check].demo_texts(), system)
     assert pictures
     first = pictures[0]
-    assert "x" in first  # the marked period is a distinct marker, readable without colour
+    assert "X" in first  # the marked period is a distinct marker, readable without colour
     assert len(first.splitlines()) <= 18
 
 

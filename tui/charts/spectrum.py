@@ -5,23 +5,24 @@ from __future__ import annotations
 from typing import Any
 
 from calc.result import Result
-from tui.charts._seismic import MARK, acceleration_scale, log_period_axis, thin, value
+from tui.charts._seismic import acceleration_scale, log_period_axis, value
+from tui.charts.common import LINE_MARKER, OPERATING_MARKER, downsample
 
 
 def draw_psa(plt: Any, result: Result, system: str) -> None:
-    """Pseudo-acceleration against period (log), the design spectrum dotted, the period marked with x."""
+    """Pseudo-acceleration against period (log), the design spectrum dotted, the period marked with X."""
     scale, unit = acceleration_scale(system)
     period = result.series["period"]
-    x, y = thin(period, result.series["psa"] / scale)
-    plt.plot(x, y, marker="braille", label="psa")
+    x, y = downsample(period, result.series["psa"] / scale)
+    plt.plot(x, y, marker=LINE_MARKER, label="psa")
     if "design_psa" in result.series:
-        x, y = thin(period, result.series["design_psa"] / scale)
+        x, y = downsample(period, result.series["design_psa"] / scale)
         plt.plot(x, y, marker="dot", label="EN 1998-1")
     psa = value(result, "psa")
     at = result.inputs["period"].value if "period" in result.inputs else None
     if psa is not None and at is not None and period[0] <= at <= period[-1]:
         plt.vline(at)
-        plt.scatter([at], [psa / scale], marker=MARK)
+        plt.scatter([at], [psa / scale], marker=OPERATING_MARKER)
     log_period_axis(plt, float(period[0]), float(period[-1]))
     plt.title(f"psa ({unit})")
 
@@ -30,10 +31,10 @@ def draw_record(plt: Any, result: Result, system: str) -> None:
     """Ground acceleration of the record, and the total acceleration at the marked period."""
     scale, unit = acceleration_scale(system)
     time = result.series["time"]
-    x, y = thin(time, result.series["ground_acceleration"] / scale)
-    plt.plot(x, y, marker="braille", label="ground")
+    x, y = downsample(time, result.series["ground_acceleration"] / scale)
+    plt.plot(x, y, marker=LINE_MARKER, label="ground")
     if "response_total_acceleration" in result.series:
-        x, y = thin(time, result.series["response_total_acceleration"] / scale)
+        x, y = downsample(time, result.series["response_total_acceleration"] / scale)
         plt.plot(x, y, marker="dot", label="at T")
     plt.title(f"record and total acceleration at T ({unit})")
     plt.xlabel("t (s)")
