@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from calc.checks import design_spectrum, forced, isolate, member, period, sdof, spectrum
+from calc.checks import decay, decrement, design_spectrum, forced, isolate, member, period, sdof, spectrum
 from calc.spec import CheckSpec
 
 SPECS: tuple[CheckSpec, ...] = (
@@ -10,6 +10,8 @@ SPECS: tuple[CheckSpec, ...] = (
     member.SPEC,
     forced.SPEC,
     isolate.SPEC,
+    decay.SPEC,
+    decrement.SPEC,
     period.SPEC,
     design_spectrum.SPEC,
     spectrum.SPEC,

@@ -2,8 +2,6 @@
 
 from __future__ import annotations
 
-import os
-
 import numpy as np
 
 from calc import groundmotion, seismic
@@ -12,27 +10,30 @@ from calc.checks.design_spectrum import GROUND_FIELDS, design_ground_acceleratio
 from calc.groundmotion import demo_path
 from calc.result import SEISMIC_CAUTION, Flag, Reference, Result
 from calc.spec import CheckSpec, Field, Inputs, Value, quantity
-from calc.units import STANDARD_GRAVITY
 
 MAX_PERIOD = 20.0
 """Longest period accepted (s)."""
-MAX_FILE_BYTES = 64 * 2**20
-"""Largest accelerogram file read (bytes)."""
+MIN_STEP, MAX_STEP = 1e-5, 1.0
+"""Time steps accepted for an accelerogram (s)."""
+MAX_ACCELERATION = 1e4
+"""Largest ground acceleration accepted (m/s^2); more means a wrong unit."""
 MIN_PERIOD = 0.001
 """Shortest period accepted (s)."""
 MAX_COUNT = 500
 """Most periods in a grid."""
-SIGNAL_UNITS = {"g": STANDARD_GRAVITY, "m/s^2": 1.0, "cm/s^2": 0.01}
+SIGNAL_UNITS = ("g", "m/s^2", "cm/s^2")
 
 FIELDS = (
     Field("file", "Accelerogram file", "path", demo_path(), positional=True,
-          help="text columns: time and ground acceleration (or give the sample rate)"),
-    Field("signal_unit", "Signal unit", "choice", "g", choices=tuple(SIGNAL_UNITS), required=False,
-          help="unit of the acceleration column"),
-    Field("time_column", "Time column", "count", "", required=False, help="1-based; default the first"),
-    Field("signal_column", "Signal column", "count", "", required=False, help="1-based; default the second"),
+          help="CSV or text: a time column and a ground acceleration column, or the signal and --sample-rate"),
+    Field("signal_unit", "Signal unit", "choice", "g", choices=SIGNAL_UNITS, required=False,
+          help="unit of the acceleration column; default from its header"),
+    Field("time_column", "Time column", "text", "", required=False,
+          help="header name or number; default the first column (or one named time)"),
+    Field("signal_column", "Signal column", "text", "", required=False,
+          help="header name or number; default the first column after the time"),
     Field("sample_rate", "Sample rate", "frequency", "", "Hz", required=False,
-          help="when the file has no time column"),
+          help="for a file without a time column"),
     Field("damping", "Damping ratio", "ratio", "5 %", "", required=False, help="default 5 %"),
     Field("period", "Period to mark", "time", "0.53 s", "s", required=False, shared=True,
           help="results and time history at this period"),
@@ -153,49 +154,27 @@ def _periods(inputs: Inputs) -> np.ndarray:
 
 def _record(inputs: Inputs) -> tuple[np.ndarray, np.ndarray, float, list[Flag]]:
     """Time (s), ground acceleration (m/s^2), time step (s) and reading notes of the file."""
-    unit = inputs.text("signal_unit") if inputs.has("signal_unit") else None
-    if unit is None:
-        raise inputs.error("signal_unit", "give the unit of the acceleration column")
-    time, signal = _read_columns(inputs)
-    acc = signal * SIGNAL_UNITS[unit]
-    dt = float(time[1] - time[0])
-    if not 1e-5 <= dt <= 1.0:
-        raise inputs.error("file", f"time step {dt:.3g} s: expected 0.00001 s to 1 s")
-    if np.max(np.abs(acc)) > 1e4:
-        raise inputs.error("file", "accelerations above 10000 m/s^2: check the signal unit")
-    return time, acc, dt, []
+    from calc.records import MAX_SAMPLE_RATE, MIN_SAMPLE_RATE, read_record
+
+    rate = inputs.optional("sample_rate", None, minimum=MIN_SAMPLE_RATE, maximum=MAX_SAMPLE_RATE)
+    record = read_record(inputs.text("file"), time_column=_optional_text(inputs, "time_column"),
+                         signal_column=_optional_text(inputs, "signal_column"), sample_rate=rate,
+                         signal_unit=_optional_text(inputs, "signal_unit"))
+    if record.quantity != "acceleration":
+        found = f"is a {record.quantity}" if record.quantity else "has no unit in its header"
+        raise inputs.error("signal_unit", f"signal column {record.channel_name!r} {found}: give the "
+                                          "acceleration unit")
+    dt = 1.0 / record.sample_rate
+    if not MIN_STEP <= dt <= MAX_STEP:
+        raise inputs.error("file", f"time step {dt:.3g} s: an accelerogram needs {MIN_STEP:g} s to {MAX_STEP:g} s")
+    if np.max(np.abs(record.signal)) > MAX_ACCELERATION:
+        raise inputs.error("file", f"accelerations above {MAX_ACCELERATION:g} m/s^2: check the signal unit")
+    notes = [Flag("info", f"{record.channel_name}: {note}") for note in record.notes]
+    return record.time, record.signal, dt, notes
 
 
-def _read_columns(inputs: Inputs) -> tuple[np.ndarray, np.ndarray]:
-    """Minimal reader of numeric text columns (comma, semicolon, tab or space separated)."""
-    path = inputs.text("file")
-    rate = inputs.optional("sample_rate", None, minimum=1.0, maximum=1e5)
-    time_column = int(inputs.optional("time_column", 1, minimum=1, maximum=100) or 1) - 1
-    signal_column = int(inputs.optional("signal_column", 1 if rate else 2, minimum=1, maximum=100) or 2) - 1
-    try:
-        if not os.path.isfile(path) or os.path.getsize(path) > MAX_FILE_BYTES:
-            raise inputs.error("file", f"not a readable file of at most {MAX_FILE_BYTES // 2**20} MiB")
-        with open(path, encoding="utf-8-sig") as handle:
-            rows = [line.replace(";", ",").replace("\t", ",") for line in handle
-                    if line.strip() and line.lstrip()[0] in "+-.0123456789"]
-        if not rows:
-            raise inputs.error("file", "no rows of numbers")
-        data = np.loadtxt(rows, delimiter=",", ndmin=2)
-    except (OSError, UnicodeDecodeError) as error:
-        raise inputs.error("file", f"cannot read the file ({error.__class__.__name__})") from error
-    except ValueError as error:
-        raise inputs.error("file", f"not numeric columns ({error})") from error
-    needed = max(signal_column, -1 if rate else time_column)
-    if data.shape[0] < 32 or data.shape[1] <= needed or not np.all(np.isfinite(data)):
-        raise inputs.error("file", "expected at least 32 rows of finite numbers in the columns asked for")
-    signal = data[:, signal_column]
-    if rate:
-        return np.arange(len(signal)) / rate, signal
-    time = data[:, time_column]
-    steps = np.diff(time)
-    if np.any(steps <= 0) or np.ptp(steps) > 0.01 * np.median(steps):
-        raise inputs.error("file", "the time column must rise in equal steps")
-    return time, signal
+def _optional_text(inputs: Inputs, name: str) -> str | None:
+    return inputs.text(name) if inputs.has(name) else None
 
 
 def _flags(spectrum: core.Spectrum, dt: float, duration: float, acc: np.ndarray, corrected: np.ndarray,

@@ -200,3 +200,16 @@ def test_spectrum_any_text(field: str, text: str) -> None:
     texts = {**SPECTRUM.demo_texts(), "shortest_period": "0.2 s", "period_count": "20", field: text}
     with contextlib.suppress(InputError):
         SPECTRUM.evaluate(texts)
+
+
+def test_spectrum_signal_unit_from_header_or_asked(tmp_path: Path) -> None:
+    demo = SPECTRUM.evaluate({"file": SPECTRUM.field("file").default, "period_count": "20"})
+    # the demo file's header says "[g]": read as g without --signal-unit
+    assert si(demo, "pga") == pytest.approx(0.18 * G0, rel=0.01)
+    bare = write_record(tmp_path / "bare.csv", 0.05 * np.sin(np.arange(500) * 0.3), 0.02)
+    with pytest.raises(InputError) as error:
+        SPECTRUM.evaluate({"file": str(bare), "period_count": "20"})
+    assert error.value.field == "Signal unit"
+    velocity = write_record(tmp_path / "v.csv", 0.05 * np.sin(np.arange(500) * 0.3), 0.02, "t,v [mm/s]")
+    with pytest.raises(InputError):
+        SPECTRUM.evaluate({"file": str(velocity), "period_count": "20"})
