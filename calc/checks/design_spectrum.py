@@ -5,6 +5,7 @@ from __future__ import annotations
 import numpy as np
 
 from calc import seismic
+from calc.checks.guard import overflow_guard
 from calc.result import SEISMIC_CAUTION, Flag, Reference, Result
 from calc.spec import CheckSpec, Field, Inputs, Value, quantity, word
 from calc.units import STANDARD_GRAVITY
@@ -83,6 +84,7 @@ def design_ground_acceleration(inputs: Inputs) -> tuple[float, float]:
     return importance * agr, importance
 
 
+@overflow_guard("design_ground_acceleration")
 def compute(inputs: Inputs) -> Result:
     shape, kind, note = read_shape(inputs)
     ag, importance = design_ground_acceleration(inputs)

@@ -5,6 +5,7 @@ from __future__ import annotations
 import numpy as np
 
 from calc import seismic
+from calc.checks.guard import overflow_guard
 from calc.result import SEISMIC_CAUTION, Flag, Reference, Result
 from calc.spec import CheckSpec, Field, Inputs, quantity
 
@@ -23,6 +24,7 @@ REFERENCES = (
 )
 
 
+@overflow_guard("height")
 def compute(inputs: Inputs) -> Result:
     height = inputs.value("height", positive=True, maximum=MAX_HEIGHT)
     system = inputs.text("system")

@@ -7,6 +7,7 @@ import numpy as np
 from calc import groundmotion, seismic
 from calc import spectrum as core
 from calc.checks.design_spectrum import GROUND_FIELDS, design_ground_acceleration, read_shape
+from calc.checks.guard import overflow_guard
 from calc.groundmotion import demo_path
 from calc.result import SEISMIC_CAUTION, Flag, Reference, Result
 from calc.spec import CheckSpec, Field, Inputs, Value, quantity
@@ -57,6 +58,7 @@ REFERENCES = (
 )
 
 
+@overflow_guard("file")
 def compute(inputs: Inputs) -> Result:
     time, acc, dt, notes = _record(inputs)
     zeta = inputs.optional("damping", 0.05, minimum=0.0, maximum=0.9)
