@@ -53,7 +53,8 @@ DESIGN_REFERENCE = Reference("Design spectrum for elastic analysis, lower bound 
 
 
 def read_shape(inputs: Inputs) -> tuple[seismic.SpectrumShape, str, str]:
-    """Spectrum shape from ground and spectrum type with any overrides; also the type and the set used."""
+    """Spectrum shape from ground and spectrum type with any overrides; also the type and the set used
+    ('Table 3.2', 'Table 3.3' or 'user S, TC', ...)."""
     ground = inputs.text("ground_type")
     kind = inputs.text("spectrum_type") if inputs.has("spectrum_type") else "1"
     base = seismic.recommended_shape(kind, ground)
@@ -69,12 +70,21 @@ def read_shape(inputs: Inputs) -> tuple[seismic.SpectrumShape, str, str]:
                     "corner_period_tb")
         raise inputs.error(last, f"corner periods must rise: TB {shape.tb:g} s < TC {shape.tc:g} s < "
                                  f"TD {shape.td:g} s")
-    table = "Table 3.2 (Type 1)" if kind == "1" else "Table 3.3 (Type 2)"
-    note = f"EN 1998-1 {table} recommended values, ground {ground}"
+    table = "Table 3.2" if kind == "1" else "Table 3.3"
+    note = table
     if given:
         names = {"soil_factor": "S", "corner_period_tb": "TB", "corner_period_tc": "TC", "corner_period_td": "TD"}
-        note = f"user values for {', '.join(names[n] for n in given)}; others from {note}"
+        note = f"user {', '.join(names[n] for n in given)}"
     return shape, kind, note
+
+
+def shape_flag(inputs: Inputs, shape: seismic.SpectrumShape, kind: str) -> Flag:
+    """Say which S, TB, TC, TD are used and where they come from."""
+    table = "Table 3.2 (Type 1)" if kind == "1" else "Table 3.3 (Type 2)"
+    values = f"S {shape.soil_factor:g}, TB {shape.tb:g} s, TC {shape.tc:g} s, TD {shape.td:g} s"
+    given = any(inputs.has(n) for n in ("soil_factor", "corner_period_tb", "corner_period_tc", "corner_period_td"))
+    source = "user values where given, else EN 1998-1 " if given else "EN 1998-1 "
+    return Flag("info", f"{values}: {source}{table} recommended, ground {inputs.text('ground_type')}")
 
 
 def design_ground_acceleration(inputs: Inputs) -> tuple[float, float]:
@@ -104,23 +114,19 @@ def compute(inputs: Inputs) -> Result:
         "corner_period_tb": quantity("TB", "time", shape.tb),
         "corner_period_tc": quantity("TC", "time", shape.tc),
         "corner_period_td": quantity("TD", "time", shape.td),
-        "parameter_set": word("Parameters", note),
+        "parameter_set": word("S, TB, TC, TD from", note),
     }
-    flags = _flags(inputs, period, zeta, eta, importance, shape)
+    flags = [shape_flag(inputs, shape, kind)] + _flags(inputs, period, zeta, eta, importance, shape)
     references: tuple[Reference, ...] = REFERENCES
     end = max(seismic.SPECTRUM_END, 1.25 * period)
     grid = np.unique(np.concatenate([np.linspace(0.0, end, 241), [shape.tb, shape.tc, shape.td, period]]))
     series = {"period": grid, "spectral_acceleration": seismic.elastic_spectrum(grid, ag, shape, eta)}
-    values["periods"] = quantity("Periods", "time", grid)
-    values["elastic_spectrum"] = quantity("Se over the periods", "acceleration", series["spectral_acceleration"])
     sd = None
     if inputs.has("behaviour_factor"):
         q = inputs.value("behaviour_factor", minimum=1.0, maximum=10.0)
         sd = float(seismic.design_spectrum(period, ag, shape, q))
         values["design_spectral_acceleration"] = quantity("Sd(T), design (q)", "acceleration", sd)
         series["design_spectral_acceleration"] = seismic.design_spectrum(grid, ag, shape, q)
-        values["design_spectrum"] = quantity("Sd over the periods", "acceleration",
-                                             series["design_spectral_acceleration"])
         references += (DESIGN_REFERENCE,)
         if zeta != 0.05:
             flags.append(Flag("info", "Sd(T) has no damping correction: q allows for it (3.2.2.5(3))"))

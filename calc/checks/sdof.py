@@ -91,5 +91,4 @@ SPEC = CheckSpec(
     summary="natural frequency, damping regime and free response of one mass on a spring",
     fields=FIELDS,
     compute=compute,
-    sends={"natural_period": "period"},
 )

@@ -6,7 +6,7 @@ import numpy as np
 
 from calc import groundmotion, seismic
 from calc import spectrum as core
-from calc.checks.design_spectrum import GROUND_FIELDS, design_ground_acceleration, read_shape
+from calc.checks.design_spectrum import GROUND_FIELDS, design_ground_acceleration, read_shape, shape_flag
 from calc.checks.guard import overflow_guard
 from calc.groundmotion import demo_path
 from calc.result import SEISMIC_CAUTION, Flag, Reference, Result
@@ -95,41 +95,28 @@ def compute(inputs: Inputs) -> Result:
     if inputs.has("design_ground_acceleration"):
         if not inputs.has("ground_type"):
             raise inputs.error("ground_type", "give the ground type for the EN 1998-1 overlay")
-        shape, _, note = read_shape(inputs)
+        shape, kind, _ = read_shape(inputs)
         ag, _ = design_ground_acceleration(inputs)
         eta = seismic.damping_correction(zeta)
         series["design_psa"] = seismic.elastic_spectrum(periods, ag, shape, eta)
-        values["design_spectrum"] = quantity("EN 1998-1 Se over the periods", "acceleration", series["design_psa"])
         if marked is not None:
             design = float(seismic.elastic_spectrum(marked, ag, shape, eta))
-            values["design_spectral_acceleration"] = quantity("EN 1998-1 Se(T) at the period", "acceleration", design)
-        notes.append(Flag("info", f"overlay: {note}"))
+            values["design_spectral_acceleration"] = quantity("EN 1998-1 Se(T)", "acceleration", design)
+        overlay = shape_flag(inputs, shape, kind)
+        notes.append(Flag("info", f"overlay {overlay.text}"))
         references += (Reference("Horizontal elastic response spectrum", "EN 1998-1:2004 3.2.2.2, eq. 3.2-3.6"),)
-    values.update(_arrays(spectrum))
     flags = notes + _flags(spectrum, dt, time[-1] - time[0], acc, corrected, pga)
     return inputs.result(values, series=series, flags=tuple(flags), references=references)
 
 
 def _marked(single: core.Spectrum) -> dict[str, Value]:
     return {
-        "sd": quantity("sd, peak relative displacement", "length", float(single.sd[0])),
-        "sv": quantity("sv, peak relative velocity", "velocity", float(single.sv[0])),
-        "psv": quantity("Pseudo-velocity omega sd", "velocity", float(single.psv[0])),
-        "psa": quantity("psa, pseudo-acceleration omega^2 sd", "acceleration", float(single.psa[0])),
-        "total_acceleration": quantity("Peak total acceleration", "acceleration",
+        "sd": quantity("sd (relative displ.)", "length", float(single.sd[0])),
+        "sv": quantity("sv (relative velocity)", "velocity", float(single.sv[0])),
+        "psv": quantity("psv (omega sd)", "velocity", float(single.psv[0])),
+        "psa": quantity("psa (omega^2 sd)", "acceleration", float(single.psa[0])),
+        "total_acceleration": quantity("Total acceleration", "acceleration",
                                        float(single.total_acceleration[0])),
-    }
-
-
-def _arrays(spectrum: core.Spectrum) -> dict[str, Value]:
-    return {
-        "periods": quantity("Periods", "time", spectrum.period),
-        "sd_spectrum": quantity("sd over the periods", "length", spectrum.sd),
-        "sv_spectrum": quantity("sv over the periods", "velocity", spectrum.sv),
-        "psv_spectrum": quantity("Pseudo-velocity over the periods", "velocity", spectrum.psv),
-        "psa_spectrum": quantity("psa over the periods", "acceleration", spectrum.psa),
-        "total_acceleration_spectrum": quantity("Total acceleration over the periods", "acceleration",
-                                                spectrum.total_acceleration),
     }
 
 
