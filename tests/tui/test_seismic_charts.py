@@ -42,6 +42,7 @@ def test_spectrum_chart_log_axis_and_overlay() -> None:
 def test_charts_without_optional_inputs() -> None:
     spec = BY_ID["spectrum"]
     texts = {**spec.demo_texts(), "period": "", "design_ground_acceleration": "", "period_count": "30"}
-    assert len(build("spectrum", texts)) == 2
+    pictures = build("spectrum", texts)
+    assert len(pictures) == 3 and "no period marked" in pictures[1]
     design = {**BY_ID["design-spectrum"].demo_texts(), "behaviour_factor": "", "mass": ""}
     assert build("design-spectrum", design)

@@ -24,6 +24,6 @@ CHARTS: dict[str, tuple[DrawFunction, ...]] = {
     "decay": (decay.draw_record, decay.draw_spectrum),
     "period": (period.draw_period,),
     "design-spectrum": (design_spectrum.draw_spectrum,),
-    "spectrum": (spectrum.draw_psa, spectrum.draw_record),
+    "spectrum": (spectrum.draw_psa, spectrum.draw_history, spectrum.draw_record),
 }
 """Check id -> its chart panels, in the order they are shown."""

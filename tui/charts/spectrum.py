@@ -1,4 +1,5 @@
-"""Charts of check `spectrum`: psa on a log period axis with the EN 1998-1 overlay, and the record."""
+"""Charts of check `spectrum`: psa on a log period axis with the EN 1998-1 overlay, the response at the
+marked period, and the record."""
 
 from __future__ import annotations
 
@@ -27,14 +28,27 @@ def draw_psa(plt: Any, result: Result, system: str) -> None:
     plt.title(f"psa ({unit})")
 
 
-def draw_record(plt: Any, result: Result, system: str) -> None:
-    """Ground acceleration of the record, and the total acceleration at the marked period."""
-    scale, unit = acceleration_scale(system)
+def draw_history(plt: Any, result: Result, system: str) -> None:
+    """Relative displacement of the single mass with the marked period against time."""
     time = result.series["time"]
-    x, y = downsample(time, result.series["ground_acceleration"] / scale)
-    plt.plot(x, y, marker=LINE_MARKER, label="ground")
-    if "response_total_acceleration" in result.series:
-        x, y = downsample(time, result.series["response_total_acceleration"] / scale)
-        plt.plot(x, y, marker="dot", label="at T")
-    plt.title(f"record and total acceleration at T ({unit})")
+    factor, unit = (1000.0, "mm") if system != "us" else (1.0 / 0.0254, "in")
+    if "response_displacement" not in result.series:
+        plt.title("no period marked: give one for its time history")
+        return
+    x, y = downsample(time, result.series["response_displacement"] * factor)
+    plt.plot(x, y, marker=LINE_MARKER)
+    peak = value(result, "sd")
+    if peak is not None:
+        plt.hline(peak * factor)
+        plt.hline(-peak * factor)
+    plt.title(f"u at T ({unit}), +-sd")
+    plt.xlabel("t (s)")
+
+
+def draw_record(plt: Any, result: Result, system: str) -> None:
+    """Ground acceleration of the record as analysed (baseline-corrected)."""
+    scale, unit = acceleration_scale(system)
+    x, y = downsample(result.series["time"], result.series["ground_acceleration"] / scale)
+    plt.plot(x, y, marker=LINE_MARKER)
+    plt.title(f"ground acceleration ({unit})")
     plt.xlabel("t (s)")
