@@ -2,10 +2,11 @@
 
 from __future__ import annotations
 
+from typing import TYPE_CHECKING
+
 import numpy as np
 
 from calc import groundmotion, seismic
-from calc import spectrum as core
 from calc.checks.design_spectrum import GROUND_FIELDS, design_ground_acceleration, read_shape, shape_flag
 from calc.checks.guard import overflow_guard
 from calc.groundmotion import demo_path
@@ -18,6 +19,11 @@ MIN_STEP, MAX_STEP = 1e-5, 1.0
 """Time steps accepted for an accelerogram (s)."""
 MAX_ACCELERATION = 1e4
 """Largest ground acceleration accepted (m/s^2); more means a wrong unit."""
+if TYPE_CHECKING:
+    from calc.spectrum import Spectrum
+
+DEFAULT_GRID = (0.02, 10.0, 200)
+"""Default period grid: shortest (s), longest (s), number of log-spaced periods (as calc.spectrum)."""
 MIN_PERIOD = 0.001
 """Shortest period accepted (s)."""
 MAX_COUNT = 500
@@ -60,6 +66,8 @@ REFERENCES = (
 
 @overflow_guard("file")
 def compute(inputs: Inputs) -> Result:
+    from calc import spectrum as core  # imported here: every other command starts faster
+
     time, acc, dt, notes = _record(inputs)
     zeta = inputs.optional("damping", 0.05, minimum=0.0, maximum=0.9)
     assert zeta is not None
@@ -109,7 +117,7 @@ def compute(inputs: Inputs) -> Result:
     return inputs.result(values, series=series, flags=tuple(flags), references=references)
 
 
-def _marked(single: core.Spectrum) -> dict[str, Value]:
+def _marked(single: Spectrum) -> dict[str, Value]:
     return {
         "sd": quantity("sd (relative displ.)", "length", float(single.sd[0])),
         "sv": quantity("sv (relative velocity)", "velocity", float(single.sv[0])),
@@ -131,14 +139,14 @@ def _periods(inputs: Inputs) -> np.ndarray:
         if values.max() > MAX_PERIOD or values.min() < MIN_PERIOD:
             raise inputs.error("periods", f"periods from {MIN_PERIOD:g} s to {MAX_PERIOD:g} s")
         return np.unique(values)
-    shortest = inputs.optional("shortest_period", core.DEFAULT_GRID[0], minimum=MIN_PERIOD, maximum=MAX_PERIOD)
-    longest = inputs.optional("longest_period", core.DEFAULT_GRID[1], positive=True, maximum=MAX_PERIOD)
-    count = inputs.optional("period_count", core.DEFAULT_GRID[2], minimum=2, maximum=MAX_COUNT)
+    shortest = inputs.optional("shortest_period", DEFAULT_GRID[0], minimum=MIN_PERIOD, maximum=MAX_PERIOD)
+    longest = inputs.optional("longest_period", DEFAULT_GRID[1], positive=True, maximum=MAX_PERIOD)
+    count = inputs.optional("period_count", DEFAULT_GRID[2], minimum=2, maximum=MAX_COUNT)
     assert shortest is not None and longest is not None and count is not None
     if longest <= shortest:
         raise inputs.error("longest_period" if inputs.has("longest_period") else "shortest_period",
                            "the longest period must exceed the shortest")
-    return core.period_grid(shortest, longest, int(count))
+    return np.geomspace(shortest, longest, int(count))
 
 
 def _record(inputs: Inputs) -> tuple[np.ndarray, np.ndarray, float, list[Flag]]:
@@ -166,7 +174,7 @@ def _optional_text(inputs: Inputs, name: str) -> str | None:
     return inputs.text(name) if inputs.has(name) else None
 
 
-def _flags(spectrum: core.Spectrum, dt: float, duration: float, acc: np.ndarray, corrected: np.ndarray,
+def _flags(spectrum: Spectrum, dt: float, duration: float, acc: np.ndarray, corrected: np.ndarray,
            pga: float) -> list[Flag]:
     flags = []
     fine = spectrum.substeps > 1

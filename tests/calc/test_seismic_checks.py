@@ -214,3 +214,9 @@ def test_spectrum_signal_unit_from_header_or_asked(tmp_path: Path) -> None:
     velocity = write_record(tmp_path / "v.csv", 0.05 * np.sin(np.arange(500) * 0.3), 0.02, "t,v [mm/s]")
     with pytest.raises(InputError):
         SPECTRUM.evaluate({"file": str(velocity), "period_count": "20"})
+
+
+def test_default_grid_matches_the_core() -> None:
+    from calc.checks.spectrum import DEFAULT_GRID
+
+    assert DEFAULT_GRID == core.DEFAULT_GRID
