@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from calc.checks import decay, decrement, forced, isolate, member, sdof
+from calc.checks import decay, decrement, design_spectrum, forced, isolate, member, period, sdof, spectrum
 from calc.spec import CheckSpec
 
 SPECS: tuple[CheckSpec, ...] = (
@@ -12,6 +12,9 @@ SPECS: tuple[CheckSpec, ...] = (
     isolate.SPEC,
     decay.SPEC,
     decrement.SPEC,
+    period.SPEC,
+    design_spectrum.SPEC,
+    spectrum.SPEC,
 )
 """Every check, in display order. Add a new check's SPEC here."""
 
