@@ -4,6 +4,8 @@ from __future__ import annotations
 
 from rich.table import Table
 from rich.text import Text
+from textual.app import RenderResult
+from textual.geometry import Size
 from textual.widgets import Static
 
 from calc.result import LEVEL_MARKS, Flag, Result
@@ -15,7 +17,34 @@ LEVEL_STYLES = {"info": "", "caution": "bold", "warning": "bold reverse"}
 
 
 class ResultsTable(Static):
-    """Result values with their units, in the chosen unit system."""
+    """Result values with their units, in the chosen unit system.
+
+    The table is laid out by rich once for each width it is shown at and kept as lines
+    of text: measuring and drawing a rich Table again on every layout and redraw was a
+    good part of the app's first frame and of each keystroke.
+    """
+
+    _lines: tuple[object, int, Text] | None = None
+
+    def _table_lines(self, width: int) -> Text | None:
+        """The table shown, as lines of ``width`` cells (None when it shows a message instead)."""
+        table = self.content
+        if not isinstance(table, Table) or width <= 0:
+            return None
+        if self._lines is None or self._lines[0] is not table or self._lines[1] != width:
+            console = self.app.console
+            rows = console.render_lines(table, console.options.update_width(width), pad=False)
+            text = Text("\n").join(Text.assemble(*((segment.text, segment.style) for segment in row)) for row in rows)
+            self._lines = (table, width, text)
+        return self._lines[2]
+
+    def get_content_height(self, container: Size, viewport: Size, width: int) -> int:
+        lines = self._table_lines(width)
+        return super().get_content_height(container, viewport, width) if lines is None else len(lines.split())
+
+    def render(self) -> RenderResult:
+        lines = self._table_lines(self.content_region.width)
+        return super().render() if lines is None else lines
 
     def show_result(self, result: Result, system: str) -> None:
         table = Table(box=None, show_header=False, padding=(0, 1, 0, 0), expand=True)

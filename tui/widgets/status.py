@@ -9,7 +9,19 @@ from textual.binding import Binding
 from textual.widgets import Static
 
 
-class TopBar(Static):
+class Line(Static):
+    """A line of text that is redrawn only when what it shows changes."""
+
+    _shown = ""
+
+    def show_line(self, text: Text, layout: bool = True) -> None:
+        """Show ``text``; ``layout`` False when the line's height never changes (no layout pass)."""
+        if text.markup != self._shown:
+            self._shown = text.markup
+            self.update(text, layout=layout)
+
+
+class TopBar(Line):
     """Check position and title, unit system, what the right pane shows, save state."""
 
     def show_state(self, index: int, count: int, check_id: str, title: str, system: str, view: str,
@@ -20,17 +32,17 @@ class TopBar(Static):
         width = max(self.size.width, 80)
         line.append(" " * max(1, width - len(line) - len(tail) - 1))
         line.append(tail)
-        self.update(line)
+        self.show_line(line, layout=False)
 
 
-class CautionLine(Static):
+class CautionLine(Line):
     """The caution of the check on screen, always visible."""
 
     def show_caution(self, caution: str) -> None:
-        self.update(Text("Caution: " + caution, style="italic"))
+        self.show_line(Text("Caution: " + caution, style="italic"))
 
 
-class KeyBar(Static):
+class KeyBar(Line):
     """One line of keys and what they do, built from the app's bindings (those marked show)."""
 
     def show_keys(self, bindings: Sequence[Binding]) -> None:
@@ -42,4 +54,4 @@ class KeyBar(Static):
                 line.append(" ")
             line.append(binding.key_display or binding.key.split(",")[0].upper(), style="reverse")
             line.append(" " + binding.description)
-        self.update(line)
+        self.show_line(line, layout=False)
