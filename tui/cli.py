@@ -8,6 +8,7 @@ from __future__ import annotations
 
 import argparse
 import json
+import os
 import sys
 from collections.abc import Sequence
 from typing import TYPE_CHECKING, NoReturn
@@ -104,12 +105,13 @@ def list_checks() -> str:
     from calc.checks import SPECS
 
     lines = []
+    width = max(len(f.option) for spec in SPECS for f in spec.fields) + 2
     for spec in SPECS:
         lines.append(f"{spec.id:<16}{spec.title}: {spec.summary}")
         for spec_field in spec.fields:
             where = spec_field.name if spec_field.positional else spec_field.option
             demo = f"  e.g. {spec_field.default!r}" if spec_field.default else ""
-            lines.append(f"    {where:<26}{spec_field.shown_label}{demo}")
+            lines.append(f"    {where:<{width}}{spec_field.shown_label}{demo}")
     return "\n".join(lines)
 
 
@@ -141,6 +143,9 @@ def main(argv: Sequence[str] | None = None) -> int:
         return run(sys.argv[1:] if argv is None else argv)
     except SystemExit as done:  # argparse: --help, --version, or a usage error already reported
         return done.code if isinstance(done.code, int) else EXIT_INPUT
+    except BrokenPipeError:  # output piped into a pager or `head` that closed early
+        sys.stdout = open(os.devnull, "w")  # noqa: SIM115 (keeps the interpreter's final flush quiet)
+        return EXIT_OK
     except KeyboardInterrupt:
         return 130
     except Exception as error:  # reported by kind in _failed; an unexpected one is a bug, said so
