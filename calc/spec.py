@@ -14,6 +14,7 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
+from calc.fields import CheckOutline, Field
 from calc.kinds import KINDS
 from calc.result import CAUTION, Flag, InputRecord, Reference, Result, Value
 from calc.units import InputError, Reading, read, si_quantity
@@ -23,44 +24,6 @@ MAX_LIST_TEXT = 2000
 MAX_LIST_ITEMS = 200
 """Most items accepted in a list field."""
 _BARE_NUMBER = re.compile(r"^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$")
-
-
-@dataclass(frozen=True)
-class Field:
-    """One input of a check.
-
-    ``kind`` is a key of :data:`calc.kinds.KINDS`, or ``"choice"`` (one of ``choices``),
-    ``"path"`` (a file) or ``"text"`` (free text the check reads itself, e.g. a column
-    name). ``unit`` is the unit a bare number takes and is shown in the label. Fields
-    sharing a ``group`` are alternatives: exactly one is given. ``many`` makes it a
-    comma-separated list (numbers separated by blanks, '5 10 Hz', are items too).
-    ``shared`` fields carry their value to other checks of a session that have a field
-    of the same name.
-    """
-
-    name: str
-    label: str
-    kind: str
-    default: str = ""
-    unit: str | None = None
-    required: bool = True
-    group: str | None = None
-    choices: tuple[str, ...] = ()
-    many: bool = False
-    shared: bool = False
-    positional: bool = False
-    help: str = ""
-
-    @property
-    def option(self) -> str:
-        """Command-line option, e.g. '--static-deflection'."""
-        return "--" + self.name.replace("_", "-")
-
-    @property
-    def shown_label(self) -> str:
-        """Label with its unit, e.g. 'Stiffness (kN/mm)'."""
-        unit = self.unit if self.unit is not None else (KINDS[self.kind].si if self.kind in KINDS else "")
-        return f"{self.label} ({unit})" if unit else self.label
 
 
 @dataclass(frozen=True)
@@ -81,6 +44,10 @@ class CheckSpec:
 
     def demo_texts(self) -> dict[str, str]:
         return {f.name: f.default for f in self.fields}
+
+    def outline(self) -> CheckOutline:
+        """The check without its compute function (what a screen shows before the core is loaded)."""
+        return CheckOutline(self.id, self.title, self.summary, self.fields, self.caution, dict(self.sends))
 
     def read(self, texts: Mapping[str, str]) -> tuple[Inputs, dict[str, InputError]]:
         """Read every field; return what was read and the errors by field name."""

@@ -3,11 +3,12 @@
 Textual reads its settings from the environment when it is first imported, so the
 defaults for work over SSH are set here before the app module (tui.field_app) loads.
 
-Start-up time is budgeted (DESIGN.md section 7). Until the first results are on screen
-the program only builds objects that live as long as it does (modules, the unit
-registry, the widgets), so the cyclic garbage collector, which would walk them again
-and again, is paused until then; they are then frozen out of its way (gc.freeze), which
-also keeps later collections, and the exit, short.
+Start-up time is budgeted (DESIGN.md section 7). The results of the first screen are
+computed by a helper process while this one loads Textual (tui/prestart.py). Until the
+first results are on screen the program only builds objects that live as long as it does
+(modules, the widgets), so the cyclic garbage collector, which would walk them again and
+again, is paused until then; they are then frozen out of its way (gc.freeze), which also
+keeps later collections, and the exit, short.
 """
 
 from __future__ import annotations
@@ -48,9 +49,22 @@ def launch(state_folder: Path | None = None, on_first_frame: Callable[[FieldApp]
             on_first_frame(app)
 
     try:
+        from tui import prestart
+        from tui.session import SessionStore, state_dir
+
+        folder = state_folder if state_folder is not None else state_dir()
+        loaded = SessionStore(folder).load()
+        helper = prestart.start(loaded.data)  # loads the core and computes the first results meanwhile
         from tui.field_app import FieldApp
 
-        result = FieldApp(state_folder=state_folder, on_first_frame=first_frame).run(headless=headless, size=size)
+        specs = helper.outlines() if helper is not None else None
+        first = helper.first if helper is not None and specs is not None else None
+        app = FieldApp(specs, folder, on_first_frame=first_frame, loaded=loaded, first=first)
+        try:
+            result = app.run(headless=headless, size=size)
+        finally:
+            if helper is not None:
+                helper.close()
     finally:
         if collecting:
             gc.enable()

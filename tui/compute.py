@@ -1,6 +1,8 @@
 """Evaluate one check from its texts into what the app shows: notes, errors, result.
 
-No Textual here: :func:`evaluate` runs in a worker thread and in benchmarks.
+No Textual here: :func:`evaluate` runs in a worker thread and in benchmarks. The core
+(numpy, pint, the checks) is imported by the functions that use it, so that importing
+this module (for :class:`Outcome`) stays cheap before the first frame.
 """
 
 from __future__ import annotations
@@ -8,13 +10,15 @@ from __future__ import annotations
 import os
 from collections.abc import Mapping
 from dataclasses import dataclass, field
+from typing import TYPE_CHECKING
 
-import numpy as np
-
+from calc.fields import CheckOutline, Field
 from calc.kinds import KINDS
-from calc.result import Result, Value
-from calc.spec import CheckSpec, Field, read_field
-from calc.units import InputError, Reading, format_quantity
+
+if TYPE_CHECKING:
+    from calc.result import Result, Value
+    from calc.spec import CheckSpec
+    from calc.units import InputError, Reading
 
 MAX_LIST_SHOWN = 4
 """List fields show at most this many read values beside them."""
@@ -35,10 +39,52 @@ class Outcome:
     problem: str = ""
     """A fault not tied to one field (shown in place of the results)."""
     result: Result | None = None
+    shown: Shown | None = None
+    """The result as text only, when it was computed in another process (``result`` is None then)."""
 
 
-def evaluate(spec: CheckSpec, texts: Mapping[str, str], system: str) -> Outcome:
+@dataclass
+class Shown:
+    """A result as the results pane shows it, in plain data (it crosses from one process to another)."""
+
+    rows: list[tuple[str, str]]
+    """(label, value with its unit) per result value."""
+    flags: list[tuple[str, str, str]]
+    """(mark, level, text) per flag."""
+
+
+def shown_of(outcome: Outcome) -> Shown | None:
+    """The outcome's result as text (None when it has no result)."""
+    result = outcome.result
+    if result is None:
+        return outcome.shown
+    from calc.result import LEVEL_MARKS
+
+    return Shown([(value.label, shown_value(value, outcome.system)) for value in result.values.values()],
+                 [(LEVEL_MARKS[flag.level], flag.level, flag.text) for flag in result.flags])
+
+
+def as_shown(outcome: Outcome) -> Outcome:
+    """A copy of ``outcome`` with its result as text only (:class:`Shown`), to send to another process."""
+    return Outcome(outcome.check, outcome.system, dict(outcome.notes), dict(outcome.errors), dict(outcome.texts),
+                   outcome.problem, None, shown_of(outcome))
+
+
+def full_spec(spec: CheckSpec | CheckOutline) -> CheckSpec:
+    """The check's spec with its compute function, for a spec or an outline (this imports the core)."""
+    if not isinstance(spec, CheckOutline):
+        return spec
+    from calc.checks import BY_ID
+
+    return BY_ID[spec.id]
+
+
+def evaluate(spec: CheckSpec | CheckOutline, texts: Mapping[str, str], system: str) -> Outcome:
     """Read every field of ``spec``, compute if all are good, and describe what happened."""
+    from calc.spec import read_field
+    from calc.units import InputError
+
+    spec = full_spec(spec)
     outcome = Outcome(spec.id, system, texts=dict(texts))
     inputs, errors = spec.read(texts)
     for spec_field in spec.fields:
@@ -62,7 +108,7 @@ def evaluate(spec: CheckSpec, texts: Mapping[str, str], system: str) -> Outcome:
     return outcome
 
 
-def evaluate_guarded(spec: CheckSpec, texts: Mapping[str, str], system: str) -> Outcome:
+def evaluate_guarded(spec: CheckSpec | CheckOutline, texts: Mapping[str, str], system: str) -> Outcome:
     """:func:`evaluate`, with any fault of a check turned into a problem shown on screen.
 
     A check that raises something other than InputError has a bug; the app shows it
@@ -75,7 +121,7 @@ def evaluate_guarded(spec: CheckSpec, texts: Mapping[str, str], system: str) -> 
                        problem=f"internal fault in {spec.id} ({type(error).__name__}: {error}); please report it")
 
 
-def field_of_error(spec: CheckSpec, error: InputError) -> Field | None:
+def field_of_error(spec: CheckSpec | CheckOutline, error: InputError) -> Field | None:
     """The field an InputError is about, from the label it names (list items: 'Label #3')."""
     for spec_field in spec.fields:
         if error.field == spec_field.label or error.field.startswith(spec_field.label + " #"):
@@ -92,6 +138,8 @@ def _problem(spec_field: Field, error: InputError) -> str:
 
 def interpretation(spec_field: Field, reading: Reading | tuple[Reading, ...] | str, system: str) -> str:
     """How a field's text was read, e.g. '= 24.17 Hz' or 'read as weight: m = W/g0 = 12 t'."""
+    from calc.units import Reading, format_quantity
+
     if isinstance(reading, Reading):
         if KINDS[reading.kind].integer:
             return f"= {reading.si:.0f}"
@@ -121,6 +169,10 @@ def _file_note(path: str) -> str:
 
 def shown_value(value: Value, system: str) -> str:
     """A result value as text in ``system``; arrays as a short list."""
+    import numpy as np
+
+    from calc.units import format_quantity
+
     if isinstance(value.quantity, str):
         return value.quantity
     magnitude = value.quantity.magnitude

@@ -18,19 +18,19 @@ from textual.app import App, ComposeResult
 from textual.binding import Binding
 from textual.widgets import ContentSwitcher
 
-from calc.checks import SPECS
-from calc.spec import CheckSpec
-from tui.compute import evaluate_guarded
-from tui.session import SessionStore, state_dir
+from calc.fields import CheckOutline
+from tui.compute import Outcome, evaluate_guarded
+from tui.session import LoadOutcome, SessionStore, state_dir
 from tui.widgets.check_view import CheckView
 from tui.widgets.status import CautionLine, KeyBar, TopBar
 from tui.workspace import Workspace
 
 if TYPE_CHECKING:
     from calc.lookups import Row
+    from calc.spec import CheckSpec
 
-# The dialogs, lookup tables and record writer are imported when first used: start-up
-# time is budgeted (DESIGN.md section 7).
+# The dialogs, lookup tables and record writer are imported when first used, and the core
+# (numpy, pint, the checks) when first needed: start-up time is budgeted (DESIGN.md 7).
 
 MAIN_ONLY = {"scroll_results", "own", "previous_check", "next_check", "go", "units", "view", "lookup", "send", "record"}
 """Actions that act on the check on screen, so not while a dialog is open."""
@@ -66,14 +66,26 @@ class FieldApp(App[int]):
                 tooltip="save the session and quit"),
     ]
 
-    def __init__(self, specs: Sequence[CheckSpec] | None = None, state_folder: Path | None = None,
-                 ascii_borders: bool | None = None, on_first_frame: Callable[[FieldApp], None] | None = None) -> None:
-        """``on_first_frame`` is called once, when the first results are on screen."""
+    def __init__(self, specs: Sequence[CheckSpec | CheckOutline] | None = None, state_folder: Path | None = None,
+                 ascii_borders: bool | None = None, on_first_frame: Callable[[FieldApp], None] | None = None,
+                 loaded: LoadOutcome | None = None, first: Callable[[], Outcome | None] | None = None) -> None:
+        """``on_first_frame`` is called once, when the first results are on screen.
+
+        From :func:`tui.app.launch`: ``specs`` may be outlines (the core is then loaded
+        after the first frame), ``loaded`` the session it read, ``first`` gives the outcome
+        of the check it opens on as computed by the helper process (tui/prestart.py).
+        """
         super().__init__()
         self._on_first_frame = on_first_frame
-        self.specs = tuple(specs if specs is not None else SPECS)
+        self._first_shown = False
+        if specs is None:
+            from calc.checks import SPECS
+
+            specs = SPECS
+        self.specs = tuple(specs)
         self.store = SessionStore(state_folder if state_folder is not None else state_dir())
-        loaded = self.store.load()
+        if loaded is None:
+            loaded = self.store.load()
         self.startup_messages = loaded.messages + self.store.probe()
         self.workspace = Workspace(self.specs, loaded.data)
         self.views: dict[str, CheckView] = {}
@@ -83,16 +95,17 @@ class FieldApp(App[int]):
                               if ascii_borders is None else ascii_borders)
         self._save_sequence = 0
         self._save_problem = ""
+        self._first = first
 
     def compose(self) -> ComposeResult:
         yield TopBar("", id="top")
-        current = self._new_view(self.workspace.current)
+        current = self._new_view(self.workspace.current, self._first)
         yield ContentSwitcher(current, initial=current.id, id="checks")
         yield CautionLine("", id="caution")
         yield KeyBar("", id="keys")
 
-    def _new_view(self, check_id: str) -> CheckView:
-        view = CheckView(self.workspace.by_id[check_id], self.workspace)
+    def _new_view(self, check_id: str, first: Callable[[], Outcome | None] | None = None) -> CheckView:
+        view = CheckView(self.workspace.by_id[check_id], self.workspace, first)
         self.views[check_id] = view
         return view
 
@@ -149,9 +162,17 @@ class FieldApp(App[int]):
     def on_check_view_computed(self, event: CheckView.Computed) -> None:
         if event.check_id == self.workspace.current:
             self._show_state()
-            if self._on_first_frame is not None:
-                self.call_after_refresh(self._on_first_frame, self)
-                self._on_first_frame = None
+            if not self._first_shown:
+                self._first_shown = True
+                self.call_after_refresh(self._first_frame)
+
+    def _first_frame(self) -> None:
+        """The first results are on screen: tell launch(); compute them here if they came as text."""
+        if self._on_first_frame is not None:
+            self._on_first_frame(self)
+        outcome = self.current_view.outcome
+        if outcome is not None and outcome.result is None and outcome.shown is not None:
+            self.current_view.request_compute()  # loads the core (numpy, pint, the checks) in a worker
 
     def save_soon(self) -> None:
         """Save the session in the background (after every change)."""
@@ -281,7 +302,8 @@ class FieldApp(App[int]):
             return
         texts = self.workspace.texts[spec.id]
         outcome = view.outcome
-        if outcome is None or outcome.texts != texts or outcome.system != self.workspace.system:
+        if (outcome is None or outcome.result is None or outcome.texts != texts
+                or outcome.system != self.workspace.system):
             outcome = evaluate_guarded(spec, texts, self.workspace.system)
         if outcome.result is None:
             self.say("Nothing sent: fix the inputs marked ! first.", warning=True)

@@ -11,12 +11,15 @@ from __future__ import annotations
 
 from collections.abc import Iterable, Sequence
 from dataclasses import dataclass
+from typing import TYPE_CHECKING
 
+from calc.fields import CheckOutline
 from calc.kinds import KINDS
-from calc.result import Result
-from calc.spec import CheckSpec
-from calc.units import display_unit
 from tui.session import SessionData
+
+if TYPE_CHECKING:
+    from calc.result import Result
+    from calc.spec import CheckSpec
 
 
 @dataclass(frozen=True)
@@ -31,7 +34,7 @@ class Sent:
 class Workspace:
     """Texts of every check of a session, with the sharing and sending rules."""
 
-    def __init__(self, specs: Sequence[CheckSpec], data: SessionData | None = None) -> None:
+    def __init__(self, specs: Sequence[CheckSpec | CheckOutline], data: SessionData | None = None) -> None:
         self.specs = tuple(specs)
         self.by_id = {spec.id: spec for spec in self.specs}
         self.texts: dict[str, dict[str, str]] = {spec.id: spec.demo_texts() for spec in self.specs}
@@ -125,6 +128,8 @@ class Workspace:
 
 def value_text(quantity: object, kind: str, system: str) -> str:
     """A quantity as text to type into a field: 6 significant figures in an engineering unit."""
+    from calc.units import display_unit
+
     unit = display_unit(quantity, kind, system)  # type: ignore[arg-type]
     magnitude = float(quantity.to(unit).magnitude)  # type: ignore[attr-defined]
     shown = KINDS[kind].names.get(unit, unit)

@@ -68,12 +68,13 @@ class ChartPane(Vertical):
     def compose(self) -> ComposeResult:
         yield Static("", classes="chart-message", markup=False)
 
-    def draw(self, result: Result | None, system: str) -> None:
-        """Draw the current panel for ``result`` (or say why there is none)."""
+    def draw(self, result: Result | None, system: str, computing: bool = False) -> None:
+        """Draw the current panel for ``result`` (or say why there is none, or that it is being computed)."""
         message = self.query_one(".chart-message", Static)
         draws = CHARTS.get(self.check_id, ())
         if not draws or result is None:
-            message.update("no chart for this check" if not draws else "no chart: fix the inputs marked !")
+            message.update("no chart for this check" if not draws else
+                           "computing..." if computing else "no chart: fix the inputs marked !")
             message.display = True
             if self._plot is not None:
                 self._plot.display = False

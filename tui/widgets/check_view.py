@@ -2,7 +2,9 @@
 
 from __future__ import annotations
 
+from collections.abc import Callable
 from dataclasses import dataclass
+from typing import TYPE_CHECKING
 
 from textual import work
 from textual.app import ComposeResult
@@ -12,13 +14,18 @@ from textual.timer import Timer
 from textual.widgets import Input
 from textual.worker import get_current_worker
 
-from calc.spec import CheckSpec
-from tui.charts import CHARTS
-from tui.compute import Outcome, evaluate_guarded
-from tui.widgets.chart_view import ChartPane
+from calc.fields import CheckOutline
+from tui.compute import Outcome, evaluate_guarded, shown_of
 from tui.widgets.field_row import FieldRow
 from tui.widgets.results_view import FlagsList, ResultsTable
 from tui.workspace import Workspace
+
+if TYPE_CHECKING:
+    from calc.spec import CheckSpec
+    from tui.widgets.chart_view import ChartPane
+
+# The charts (plotext) load when a chart is first shown, and the core (numpy, pint, the
+# checks) when a check is first computed here: start-up time is budgeted (DESIGN.md 7).
 
 THROTTLE = 0.15
 """Seconds: a keystroke after a quiet spell computes at once; further ones within this wait for its end."""
@@ -40,12 +47,15 @@ class CheckView(Vertical):
 
         check_id: str
 
-    def __init__(self, spec: CheckSpec, workspace: Workspace) -> None:
+    def __init__(self, spec: CheckSpec | CheckOutline, workspace: Workspace,
+                 first: Callable[[], Outcome | None] | None = None) -> None:
+        """``first`` gives the outcome of the check's texts when it was computed elsewhere (or None)."""
         super().__init__(id=f"check-{spec.id}", classes="check-view")
         self.spec = spec
         self.workspace = workspace
         self.outcome: Outcome | None = None
         """The last evaluation shown."""
+        self._first = first
         self.view = 0
         """0 shows the results table; n >= 1 shows chart panel n."""
         self.stale = False
@@ -69,7 +79,10 @@ class CheckView(Vertical):
         texts = self.workspace.texts[self.spec.id]
         self._rows = {spec_field.name: FieldRow(self.spec.id, spec_field, texts.get(spec_field.name, ""), self._edited)
                       for spec_field in self.spec.fields}
-        if not self._reads_files:  # a few milliseconds: the widgets are made with the results in them
+        first = self._first() if self._first is not None else None
+        if first is not None and first.check == self.spec.id and first.texts == texts:
+            self._show(first)
+        elif not self._reads_files:  # a few milliseconds: the widgets are made with the results in them
             self._show(evaluate_guarded(self.spec, dict(texts), self.workspace.system))
         with Horizontal(classes="panes"):
             with VerticalScroll(classes="fields") as fields:
@@ -157,13 +170,14 @@ class CheckView(Vertical):
         self.outcome = outcome
         for name, row in self._rows.items():
             row.show(self._note(name, outcome), outcome.errors.get(name, ""))
-        if outcome.result is not None:
-            self._table.show_result(outcome.result, outcome.system)
-            self._flags.show_flags(outcome.result.flags)
+        shown = shown_of(outcome)
+        if shown is not None:
+            self._table.show_rows(shown.rows)
+            self._flags.show_flags(shown.flags)
         else:
             bad = [self.spec.field(name).label for name in outcome.errors]
             self._table.show_problem(outcome.problem or "Fix the field marked ! : " + ", ".join(bad))
-            self._flags.show_flags(())
+            self._flags.show_flags([])
 
     def _note(self, name: str, outcome: Outcome) -> str:
         note = outcome.notes.get(name, "")
@@ -187,6 +201,9 @@ class CheckView(Vertical):
 
     async def cycle_view(self) -> str:
         """Results -> chart panel 1 -> ... -> results; return what is shown now."""
+        from tui.charts import CHARTS
+        from tui.widgets.chart_view import ChartPane
+
         panels = max(len(CHARTS.get(self.spec.id, ())), 1)
         self.view = (self.view + 1) % (panels + 1)
         if self.view and self._chart is None:
@@ -199,5 +216,9 @@ class CheckView(Vertical):
         if not self.view or self._chart is None:
             return "results"
         self._chart.panel = self.view - 1
-        self._chart.draw(self.outcome.result if self.outcome else None, self.workspace.system)
+        outcome = self.outcome
+        as_text = outcome is not None and outcome.result is None and outcome.shown is not None
+        if as_text:  # the results came as text from another process: the chart needs the result itself
+            self.request_compute()
+        self._chart.draw(outcome.result if outcome else None, self.workspace.system, computing=as_text)
         return f"chart {self.view}/{panels}"

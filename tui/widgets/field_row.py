@@ -12,7 +12,7 @@ from textual.containers import Horizontal, Vertical
 from textual.suggester import SuggestFromList
 from textual.widgets import Input, Static
 
-from calc.spec import Field
+from calc.fields import Field
 from tui.widgets.path_suggester import PathSuggester
 
 MAX_INPUT = 4096

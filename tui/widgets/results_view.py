@@ -8,9 +8,6 @@ from textual.app import RenderResult
 from textual.geometry import Size
 from textual.widgets import Static
 
-from calc.result import LEVEL_MARKS, Flag, Result
-from tui.compute import shown_value
-
 LEVEL_WORDS = {"info": "note", "caution": "caution", "warning": "WARNING"}
 """Flag levels as words, shown beside their mark: meaning never rests on colour."""
 LEVEL_STYLES = {"info": "", "caution": "bold", "warning": "bold reverse"}
@@ -46,28 +43,31 @@ class ResultsTable(Static):
         lines = self._table_lines(self.content_region.width)
         return super().render() if lines is None else lines
 
-    def show_result(self, result: Result, system: str) -> None:
+    def show_rows(self, rows: list[tuple[str, str]]) -> None:
+        """Show (label, value with its unit) rows (see :func:`tui.compute.as_shown`)."""
         table = Table(box=None, show_header=False, padding=(0, 1, 0, 0), expand=True)
         table.add_column("what", ratio=1, overflow="ellipsis", no_wrap=True)
         table.add_column("value", overflow="fold", justify="right")
-        for value in result.values.values():
-            table.add_row(Text(value.label), Text(shown_value(value, system)))
+        for label, value in rows:
+            table.add_row(Text(label), Text(value))
         self.update(table)
 
     def show_problem(self, problem: str) -> None:
         self.update(Text("No result. " + problem))
 
 
-def flag_line(flag: Flag) -> Text:
+def flag_line(mark: str, level: str, text: str) -> Text:
     """A flag as one line: mark, level word, text."""
-    line = Text(f"{LEVEL_MARKS[flag.level]:<2} {LEVEL_WORDS[flag.level]}: ", style=LEVEL_STYLES[flag.level])
-    line.append(flag.text)
+    line = Text(f"{mark:<2} {LEVEL_WORDS[level]}: ", style=LEVEL_STYLES[level])
+    line.append(text)
     return line
 
 
 class FlagsList(Static):
     """The flags of the current result, each marked by a symbol and a word."""
 
-    def show_flags(self, flags: tuple[Flag, ...]) -> None:
+    def show_flags(self, flags: list[tuple[str, str, str]]) -> None:
+        """Show (mark, level, text) flags (see :class:`tui.compute.Shown`)."""
         self.display = bool(flags)
-        self.update(Text("\n").join(flag_line(flag) for flag in flags))
+        self.update(Text("\n").join(flag_line(*flag) for flag in flags))
+
