@@ -9,6 +9,7 @@ from rich.text import Text
 from textual import events
 from textual.app import ComposeResult
 from textual.containers import Horizontal, Vertical
+from textual.content import Content
 from textual.suggester import SuggestFromList
 from textual.widgets import Input, Static
 
@@ -97,12 +98,12 @@ class FieldRow(Vertical):
             return PathSuggester()
         return None
 
-    def render(self) -> Text:
+    def render(self) -> Content:
         """The label line: a '>' marker on the field in focus, the label with its unit."""
         label = self.field.shown_label
         if self.field.many:
             label += ", list"
-        return Text(("> " if self._focused else "  ") + label, style="bold")
+        return Content.styled(("> " if self._focused else "  ") + label, "bold")
 
     def on_descendant_focus(self) -> None:
         self._focused = True
