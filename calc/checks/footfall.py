@@ -1,0 +1,89 @@
+"""Check `footfall`: a floor's or footbridge's frequencies against walking, running and jumping bands."""
+
+from __future__ import annotations
+
+import numpy as np
+
+from calc import footfall
+from calc.footfall import Band
+from calc.result import Flag, Reference, Result, Value
+from calc.spec import CheckSpec, Field, Inputs, quantity, word
+
+NEAR = 0.10
+"""A frequency within 10 % of a forcing band's edge is reported as near it."""
+
+FIELDS = (
+    Field("frequency", "Vertical frequencies", "frequency", "2.1 Hz", "Hz", many=True, shared=True,
+          help="one or more vertical natural frequencies"),
+    Field("lateral_frequency", "Lateral frequencies", "frequency", "1.05 Hz", "Hz", many=True, required=False,
+          help="lateral (horizontal) or torsional natural frequencies"),
+    Field("structure", "Structure", "choice", "footbridge", choices=footfall.STRUCTURES,
+          help="footbridge adds the footbridge guides' risk ranges and the EN 1990 limits"),
+)
+
+
+def compute(inputs: Inputs) -> Result:
+    structure = inputs.text("structure")
+    values: dict[str, Value] = {}
+    flags: list[Flag] = []
+    series: dict[str, np.ndarray] = {}
+    sources: set[str] = set()
+    for name, direction in (("frequency", "vertical"), ("lateral_frequency", "lateral")):
+        if not inputs.has(name):
+            continue
+        frequencies = inputs.array(name, positive=True)
+        bands = footfall.bands_for(direction, structure)
+        sources.update(b.source for b in bands)
+        values.update(_direction_values(direction, frequencies, bands, structure, flags, sources))
+        series["frequencies" if direction == "vertical" else "lateral_frequencies"] = frequencies
+        rows = footfall.chart_rows(bands)
+        for key, column in rows.items():
+            series[key] = np.concatenate([series[key], column]) if key in series else column
+    references = tuple(Reference("Forcing-frequency bands and comfort-check limits", source)
+                       for source in sorted(sources))
+    return inputs.result(values, series=series, flags=tuple(flags), references=references)
+
+
+def _direction_values(direction: str, frequencies: np.ndarray, bands: tuple[Band, ...], structure: str,
+                      flags: list[Flag], sources: set[str]) -> dict[str, Value]:
+    """Band membership, margins and the comfort-check verdict for one direction."""
+    described, verdicts = [], []
+    margins = np.array([footfall.forcing_margin(float(f), bands) for f in frequencies])
+    for frequency, margin in zip(frequencies, margins, strict=True):
+        f = float(frequency)
+        inside = footfall.bands_containing(f, bands)
+        described.append(f"{f:.3g} Hz: " + ("; ".join(b.shown() for b in inside) if inside else "none"))
+        needed, rule, source = footfall.comfort_check_needed(f, direction, structure)
+        sources.add(source)
+        verdicts.append(f"{f:.3g} Hz {'needed' if needed else 'not needed'}")
+        flags.extend(_frequency_flags(direction, f, inside, margin, needed, rule))
+    prefix = "" if direction == "vertical" else "lateral_"
+    return {
+        f"{prefix}bands": word(f"{direction.capitalize()} bands hit", " | ".join(described)),
+        f"{prefix}margin": quantity(f"{direction.capitalize()} margin to forcing band (- inside)", "frequency",
+                                    margins),
+        f"{prefix}comfort_check": word(f"{direction.capitalize()} comfort check", ", ".join(verdicts)),
+    }
+
+
+def _frequency_flags(direction: str, frequency: float, inside: tuple[Band, ...], margin: float, needed: bool,
+                     rule: str) -> list[Flag]:
+    flags = []
+    if inside:
+        level = "warning" if any(b.severe for b in inside) else "caution"
+        names = ", ".join(b.name for b in inside)
+        flags.append(Flag(level, f"{direction} {frequency:.3g} Hz is inside {names}"))  # type: ignore[arg-type]
+    elif margin < NEAR * frequency:
+        flags.append(Flag("caution", f"{direction} {frequency:.3g} Hz is within {margin:.2g} Hz of a forcing band"))
+    if needed:
+        flags.append(Flag("caution", f"comfort check needed, {direction} {frequency:.3g} Hz: {rule}"))
+    return flags
+
+
+SPEC = CheckSpec(
+    id="footfall",
+    title="Walking bands",
+    summary="floor or footbridge frequencies against walking, running and jumping forcing bands",
+    fields=FIELDS,
+    compute=compute,
+)

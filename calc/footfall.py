@@ -1,0 +1,130 @@
+"""Forcing-frequency bands of people walking, running and jumping, and where a structure's frequencies fall.
+
+Frequencies in Hz. Harmonic h of an activity covers h times its pacing-rate range: the
+force of a periodic gait is a Fourier series at whole multiples of the pacing rate, and
+the lateral force of walking repeats once every two steps (half the pacing rate).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+
+BACHMANN = "Bachmann & Ammann, Vibrations in Structures Induced by Man and Machines, IABSE 1987 (from memory)"
+SETRA = "Setra, Footbridges: assessment of vibrational behaviour, October 2006, risk ranges (from memory)"
+HIVOSS = "HiVoSS, Design of Footbridges guideline (JRC), critical ranges (from memory)"
+EN1990 = "EN 1990 Annex A2, A2.4.3.2 (from memory)"
+SCI_P354 = "SCI P354, Design of Floors for Vibration (from memory)"
+
+WALKING = (1.6, 2.4)
+"""Pacing rate of walking, Hz."""
+RUNNING = (2.0, 3.5)
+"""Pacing rate of running, Hz."""
+JUMPING = (1.8, 3.4)
+"""Rate of jumping, Hz."""
+
+FOOTBRIDGE_VERTICAL_LIMIT = 5.0
+"""Below this vertical frequency (Hz) a footbridge's comfort is to be verified."""
+FOOTBRIDGE_LATERAL_LIMIT = 2.5
+"""Below this lateral or torsional frequency (Hz) a footbridge's comfort is to be verified."""
+LOW_FREQUENCY_FLOOR = 10.0
+"""Below this frequency (Hz) a floor can respond resonantly to walking harmonics."""
+
+STRUCTURES = ("footbridge", "floor")
+
+
+@dataclass(frozen=True)
+class Band:
+    """A range of forcing frequencies (Hz) in one direction, with its source.
+
+    ``guide`` bands are a guide's risk ranges for footbridges rather than an activity's forcing.
+    ``severe`` bands deserve a warning (first harmonics, maximum-risk ranges), the rest a caution.
+    """
+
+    short: str
+    name: str
+    direction: str
+    low: float
+    high: float
+    source: str
+    severe: bool = False
+    guide: bool = False
+
+    def contains(self, frequency: float) -> bool:
+        """Whether ``frequency`` lies in the band, edges included."""
+        return self.low <= frequency <= self.high
+
+    def margin(self, frequency: float) -> float:
+        """Distance (Hz) from ``frequency`` to the nearer edge: positive outside, negative inside."""
+        if self.contains(frequency):
+            return -min(frequency - self.low, self.high - frequency)
+        return self.low - frequency if frequency < self.low else frequency - self.high
+
+    def shown(self) -> str:
+        return f"{self.name} {self.low:g}-{self.high:g} Hz"
+
+
+def _harmonics(short: str, activity: str, rate: tuple[float, float], count: int) -> tuple[Band, ...]:
+    return tuple(Band(f"{short}{h}", f"{activity} harmonic {h}", "vertical", h * rate[0], h * rate[1], BACHMANN,
+                      severe=h == 1) for h in range(1, count + 1))
+
+
+BANDS: tuple[Band, ...] = (
+    *_harmonics("W", "walking", WALKING, 4),
+    *_harmonics("R", "running", RUNNING, 2),
+    *_harmonics("J", "jumping", JUMPING, 3),
+    Band("S1", "Setra range 1 (maximum risk)", "vertical", 1.7, 2.1, SETRA, severe=True, guide=True),
+    Band("S2", "Setra range 2 (medium risk)", "vertical", 1.0, 1.7, SETRA, guide=True),
+    Band("S2", "Setra range 2 (medium risk)", "vertical", 2.1, 2.6, SETRA, guide=True),
+    Band("S3", "Setra range 3 (low risk, 2nd harmonic)", "vertical", 2.6, 5.0, SETRA, guide=True),
+    Band("H1", "HiVoSS critical range", "vertical", 1.25, 2.3, HIVOSS, severe=True, guide=True),
+    Band("H2", "HiVoSS 2nd-harmonic range", "vertical", 2.5, 4.6, HIVOSS, guide=True),
+    Band("WL", "walking, lateral (half pacing rate)", "lateral", WALKING[0] / 2, WALKING[1] / 2, BACHMANN,
+         severe=True),
+    Band("SL1", "Setra lateral range 1 (maximum risk)", "lateral", 0.5, 1.1, SETRA, severe=True, guide=True),
+    Band("SL2", "Setra lateral range 2 (medium risk)", "lateral", 0.3, 0.5, SETRA, guide=True),
+    Band("SL2", "Setra lateral range 2 (medium risk)", "lateral", 1.1, 1.3, SETRA, guide=True),
+    Band("SL3", "Setra lateral range 3 (low risk)", "lateral", 1.3, 2.5, SETRA, guide=True),
+    Band("HL", "HiVoSS lateral critical range", "lateral", 0.5, 1.2, HIVOSS, severe=True, guide=True),
+)
+"""Every band, vertical first. Guides' footbridge ranges apply to footbridges only."""
+
+
+def bands_for(direction: str, structure: str) -> tuple[Band, ...]:
+    """The bands that apply to a direction ('vertical' or 'lateral') of a structure ('footbridge' or 'floor')."""
+    return tuple(b for b in BANDS if b.direction == direction and (structure == "footbridge" or not b.guide))
+
+
+def bands_containing(frequency: float, bands: tuple[Band, ...]) -> tuple[Band, ...]:
+    """The bands that contain ``frequency``."""
+    return tuple(b for b in bands if b.contains(frequency))
+
+
+def forcing_margin(frequency: float, bands: tuple[Band, ...]) -> float:
+    """Signed distance (Hz) to the nearest edge of the activity bands (not the guides' ranges):
+    positive when outside all of them, negative (depth) when inside one."""
+    forcing = [b for b in bands if not b.guide]
+    inside = [b.margin(frequency) for b in forcing if b.contains(frequency)]
+    if inside:
+        return min(inside)
+    return min(b.margin(frequency) for b in forcing)
+
+
+def comfort_check_needed(frequency: float, direction: str, structure: str) -> tuple[bool, str, str]:
+    """Whether a comfort (acceleration) check is needed, the rule applied in words, and its source."""
+    if structure == "footbridge":
+        limit = FOOTBRIDGE_VERTICAL_LIMIT if direction == "vertical" else FOOTBRIDGE_LATERAL_LIMIT
+        return frequency < limit, f"{direction} frequency below {limit:g} Hz", EN1990
+    if direction == "vertical":
+        return (frequency < LOW_FREQUENCY_FLOOR,
+                f"floor below {LOW_FREQUENCY_FLOOR:g} Hz responds resonantly to walking harmonics", SCI_P354)
+    inside = bool(bands_containing(frequency, bands_for(direction, structure)))
+    return inside, "inside a lateral forcing band", "Common practice (no floor limit known)"
+
+
+def chart_rows(bands: tuple[Band, ...]) -> dict[str, np.ndarray]:
+    """Series for a band chart: one row per band, index into :data:`BANDS`, low and high edge (Hz)."""
+    index = np.array([BANDS.index(b) for b in bands], dtype=float)
+    return {"band_index": index, "band_low": np.array([b.low for b in bands]),
+            "band_high": np.array([b.high for b in bands])}
