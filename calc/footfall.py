@@ -55,12 +55,6 @@ class Band:
         """Whether ``frequency`` lies in the band, edges included."""
         return self.low <= frequency <= self.high
 
-    def margin(self, frequency: float) -> float:
-        """Distance (Hz) from ``frequency`` to the nearer edge: positive outside, negative inside."""
-        if self.contains(frequency):
-            return -min(frequency - self.low, self.high - frequency)
-        return self.low - frequency if frequency < self.low else frequency - self.high
-
     def shown(self) -> str:
         return f"{self.name} {self.low:g}-{self.high:g} Hz"
 
@@ -102,13 +96,19 @@ def bands_containing(frequency: float, bands: tuple[Band, ...]) -> tuple[Band, .
 
 
 def forcing_margin(frequency: float, bands: tuple[Band, ...]) -> float:
-    """Signed distance (Hz) to the nearest edge of the activity bands (not the guides' ranges):
-    positive when outside all of them, negative (depth) when inside one."""
-    forcing = [b for b in bands if not b.guide]
-    inside = [b.margin(frequency) for b in forcing if b.contains(frequency)]
-    if inside:
-        return min(inside)
-    return min(b.margin(frequency) for b in forcing)
+    """Signed distance (Hz) from ``frequency`` to the edge of the activity bands (not the guides' ranges),
+    overlapping bands merged: positive when clear of them all; when inside, minus the shift that
+    would clear the merged range containing it."""
+    merged: list[list[float]] = []
+    for band in sorted((b for b in bands if not b.guide), key=lambda b: b.low):
+        if merged and band.low <= merged[-1][1]:
+            merged[-1][1] = max(merged[-1][1], band.high)
+        else:
+            merged.append([band.low, band.high])
+    for low, high in merged:
+        if low <= frequency <= high:
+            return -min(frequency - low, high - frequency)
+    return min(min(abs(frequency - low), abs(frequency - high)) for low, high in merged)
 
 
 def comfort_check_needed(frequency: float, direction: str, structure: str) -> tuple[bool, str, str]:

@@ -15,6 +15,8 @@ from dataclasses import dataclass
 import numpy as np
 
 EXCITATIONS = ("force", "ground")
+MIN_MASS_RATIO = 0.001
+"""Smallest mass ratio accepted (0.1 %): below it the damper does nothing measurable."""
 MAX_MASS_RATIO = 0.5
 """Largest mass ratio accepted: beyond it the damper is no longer an added mass."""
 
@@ -103,8 +105,8 @@ def peak(mu: float, tuning: float, zeta_d: float, zeta_p: float, excitation: str
     values = amplitude(grid)
     if not np.all(np.isfinite(values)):
         return math.inf, float(grid[np.argmax(~np.isfinite(values))])
-    inner = np.nonzero((values[1:-1] >= values[:-2]) & (values[1:-1] >= values[2:]))[0] + 1
-    candidates = sorted(inner, key=lambda i: -values[i])[:3] or [int(np.argmax(values))]
+    inner = [int(i) + 1 for i in np.nonzero((values[1:-1] >= values[:-2]) & (values[1:-1] >= values[2:]))[0]]
+    candidates = sorted(inner, key=lambda i: -float(values[i]))[:3] or [int(np.argmax(values))]
     best, best_ratio = float(values.max()), float(grid[np.argmax(values)])
     for index in candidates:
         low, high = grid[max(index - 1, 0)], grid[min(index + 1, grid.size - 1)]
@@ -136,7 +138,8 @@ def mass_ratio_for_damping(target: float, zeta_p: float, excitation: str) -> flo
     """Mass ratio whose optimally tuned damper gives the primary an equivalent damping ``target``.
 
     Equivalent damping is that of a single mass with the same resonant peak (numerical peak,
-    closed-form optimum tuning). Raises ValueError if no mass ratio up to 0.5 reaches it.
+    closed-form optimum tuning). Returns :data:`MIN_MASS_RATIO` if that already reaches it; raises
+    ValueError if no mass ratio up to :data:`MAX_MASS_RATIO` does.
     """
     from scipy.optimize import brentq
 
@@ -145,7 +148,7 @@ def mass_ratio_for_damping(target: float, zeta_p: float, excitation: str) -> flo
         best = optimum(mu, excitation)
         return equivalent_damping(peak(mu, best.tuning, best.damping, zeta_p, excitation)[0]) - target
 
-    low, high = math.log(1e-5), math.log(MAX_MASS_RATIO)
+    low, high = math.log(MIN_MASS_RATIO), math.log(MAX_MASS_RATIO)
     if excess(high) < 0:
         raise ValueError("not reached with a mass ratio up to 50 %")
     if excess(low) >= 0:

@@ -12,6 +12,7 @@ import math
 import re
 import tokenize
 from dataclasses import dataclass
+from typing import Any
 
 import numpy as np
 import pint
@@ -198,8 +199,9 @@ def _safe_units(text: str, name: str, unit_text: str, spec: Kind) -> pint.Unit:
     cleaned = _POWER.sub("**", unit_text)
     try:
         return ureg.parse_units(cleaned)
+    # pint's expression parser reports a dangling operator ('A/', '()') by a failed assert
     except (pint.errors.PintError, AttributeError, TypeError, ValueError, SyntaxError,
-            KeyError, IndexError, ZeroDivisionError, tokenize.TokenError) as error:
+            KeyError, IndexError, ZeroDivisionError, tokenize.TokenError, AssertionError) as error:
         raise InputError(name, text, f"unknown unit {unit_text!r}", spec.example) from error
 
 
@@ -218,7 +220,7 @@ def format_number(value: float, digits: int = 4) -> str:
 def display_unit(quantity: pint.Quantity, kind: str, system: str = "si") -> str:
     """Choose the display unit of ``kind`` in ``system`` ("si" or "us") for this value."""
     choices = KINDS[kind].display[system]
-    magnitudes = [abs(float(m)) for m in _flat(quantity.to(KINDS[kind].si).magnitude)]
+    magnitudes = [abs(m) for m in _flat(quantity.to(KINDS[kind].si).magnitude)]
     magnitude = max((m for m in magnitudes if math.isfinite(m)), default=0.0)
     for unit in choices:
         if magnitude >= Q_(1, unit).to(KINDS[kind].si).magnitude * 0.9999:
@@ -236,13 +238,16 @@ def format_quantity(quantity: pint.Quantity, kind: str, system: str = "si", digi
     magnitude = quantity.to(unit).magnitude
     shown_unit = KINDS[kind].names.get(unit, unit)
     rows = magnitude if getattr(magnitude, "ndim", 0) == 2 else [magnitude]
-    texts = (", ".join(format_number(float(v), digits) for v in _flat(row)) for row in rows)  # type: ignore[union-attr]
+    def shown(v: float) -> str:
+        return f"{v:.0f}" if KINDS[kind].integer else format_number(v, digits)
+
+    texts = (", ".join(shown(v) for v in _flat(row)) for row in rows)
     return "; ".join(f"{text} {shown_unit}".rstrip() for text in texts)
 
 
-def _flat(magnitude: object) -> list[object]:
+def _flat(magnitude: Any) -> list[float]:
     """The numbers of a scalar or array magnitude, in order."""
-    return list(magnitude.ravel()) if hasattr(magnitude, "ravel") else [magnitude]  # type: ignore[attr-defined]
+    return [float(v) for v in magnitude.ravel()] if hasattr(magnitude, "ravel") else [float(magnitude)]
 
 
 def to_si(quantity: pint.Quantity, kind: str) -> float:

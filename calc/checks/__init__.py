@@ -2,11 +2,14 @@
 
 from __future__ import annotations
 
-from calc.checks import sdof
+from calc.checks import footfall, sdof, storeys, tmd
 from calc.spec import CheckSpec
 
 SPECS: tuple[CheckSpec, ...] = (
     sdof.SPEC,
+    storeys.SPEC,
+    tmd.SPEC,
+    footfall.SPEC,
 )
 """Every check, in display order. Add a new check's SPEC here."""
 

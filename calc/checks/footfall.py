@@ -12,6 +12,12 @@ from calc.spec import CheckSpec, Field, Inputs, quantity, word
 NEAR = 0.10
 """A frequency within 10 % of a forcing band's edge is reported as near it."""
 
+METHODS = {
+    footfall.BACHMANN: "Pacing rates of walking, running and jumping; harmonic h covers h times the range",
+    footfall.SETRA: "Footbridge risk ranges of the natural frequency",
+    footfall.HIVOSS: "Footbridge critical frequency ranges",
+}
+
 FIELDS = (
     Field("frequency", "Vertical frequencies", "frequency", "2.1 Hz", "Hz", many=True, shared=True,
           help="one or more vertical natural frequencies"),
@@ -39,8 +45,7 @@ def compute(inputs: Inputs) -> Result:
         rows = footfall.chart_rows(bands)
         for key, column in rows.items():
             series[key] = np.concatenate([series[key], column]) if key in series else column
-    references = tuple(Reference("Forcing-frequency bands and comfort-check limits", source)
-                       for source in sorted(sources))
+    references = tuple(Reference(METHODS.get(source, "Comfort-check limit"), source) for source in sorted(sources))
     return inputs.result(values, series=series, flags=tuple(flags), references=references)
 
 
@@ -60,7 +65,7 @@ def _direction_values(direction: str, frequencies: np.ndarray, bands: tuple[Band
     prefix = "" if direction == "vertical" else "lateral_"
     return {
         f"{prefix}bands": word(f"{direction.capitalize()} bands hit", " | ".join(described)),
-        f"{prefix}margin": quantity(f"{direction.capitalize()} margin to forcing band (- inside)", "frequency",
+        f"{prefix}margin": quantity(f"{direction.capitalize()} margin to forcing bands (- inside)", "frequency",
                                     margins),
         f"{prefix}comfort_check": word(f"{direction.capitalize()} comfort check", ", ".join(verdicts)),
     }

@@ -8,7 +8,7 @@ import numpy as np
 
 from calc import tmd
 from calc.result import Flag, Reference, Result
-from calc.spec import CheckSpec, Field, Inputs, quantity, word
+from calc.spec import CheckSpec, Field, Inputs, quantity
 
 MISTUNING = 0.05
 """Damper frequency error shown either side of the optimum (5 %)."""
@@ -20,7 +20,7 @@ FIELDS = (
     Field("damping", "Mode damping ratio", "ratio", "0.6 %", "", shared=True,
           help="the structure's own damping in this mode"),
     Field("mass_ratio", "Mass ratio", "ratio", "2 %", "", group="size",
-          help="damper mass / modal mass, up to 50 %"),
+          help="damper mass / modal mass, 0.1 % to 50 %"),
     Field("target_damping", "Target equivalent damping", "ratio", "", "", group="size",
           help="damping of a single mass with the same resonant peak; solves for the mass ratio"),
     Field("excitation", "Excitation", "choice", "force", choices=tmd.EXCITATIONS,
@@ -50,9 +50,11 @@ def compute(inputs: Inputs) -> Result:
     excitation = inputs.text("excitation")
     flags: list[Flag] = []
     if inputs.has("mass_ratio"):
-        mu = inputs.value("mass_ratio", positive=True, maximum=tmd.MAX_MASS_RATIO)
+        mu = inputs.value("mass_ratio", minimum=tmd.MIN_MASS_RATIO, maximum=tmd.MAX_MASS_RATIO)
     else:
         mu = _solve_mass_ratio(inputs, zeta_p, excitation)
+        if mu == tmd.MIN_MASS_RATIO:
+            flags.append(Flag("info", f"the smallest mass ratio considered ({mu:.1%}) already reaches the target"))
     best = tmd.optimum(mu, excitation)
     omega_p = 2 * math.pi * frequency
     mass, omega_d = mu * modal_mass, best.tuning * omega_p
@@ -133,7 +135,8 @@ def _flags(mu: float, zeta_p: float, peak: float, low: float, high: float) -> li
 def _series(mu: float, best: tmd.Optimum, zeta_p: float, excitation: str) -> dict[str, np.ndarray]:
     """Response curves for the chart: with the damper, without, and mistuned either side."""
     spread = max(0.3, 3 * math.sqrt(mu))
-    ratio = np.linspace(max(0.05, 1 - spread), 1 + spread, 241)
+    ratio = 1 + spread * np.linspace(-1.0, 1.0, 240)
+    ratio = ratio[ratio >= 0.05]
     with_damper = np.abs(tmd.response(ratio, mu, best.tuning, best.damping, zeta_p, excitation)[0])
     without = np.abs(tmd.response(ratio, 0.0, 1.0, 0.0, zeta_p, excitation)[0])
     low = np.abs(tmd.response(ratio, mu, best.tuning * (1 - MISTUNING), best.damping, zeta_p, excitation)[0])
