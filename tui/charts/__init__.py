@@ -12,9 +12,14 @@ from collections.abc import Callable
 from typing import Any
 
 from calc.result import Result
+from tui.charts import footfall, storeys, tmd
 
 DrawFunction = Callable[[Any, Result, str], None]
 """draw(plt, result, system) where system is 'si' or 'us'."""
 
-CHARTS: dict[str, tuple[DrawFunction, ...]] = {}
+CHARTS: dict[str, tuple[DrawFunction, ...]] = {
+    "storeys": (storeys.draw_mode_shapes,),
+    "tmd": (tmd.draw_response, tmd.draw_mistuning),
+    "footfall": (footfall.draw_vertical, footfall.draw_lateral),
+}
 """Check id -> its chart panels, in the order they are shown."""
