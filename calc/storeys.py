@@ -16,6 +16,8 @@ SOFT_STOREY_RATIO = 0.70
 """A storey stiffer than 70 % of the storey above passes the soft-storey screen."""
 SOFT_STOREY_AVERAGE_RATIO = 0.80
 """... and stiffer than 80 % of the average of the three storeys above."""
+ROOF_TOLERANCE = 1e-9
+"""A mode whose roof motion is below this share of its largest motion counts as having none."""
 MASS_PARTICIPATION_TARGET = 0.90
 """Effective modal mass the modes taken into account must reach (share of the total)."""
 
@@ -24,7 +26,9 @@ MASS_PARTICIPATION_TARGET = 0.90
 class Modes:
     """Undamped modes of a shear building, ordered from the longest period.
 
-    ``shapes[n, j]`` is mode n at floor j (bottom to top), normalised to 1 at the roof.
+    ``shapes[n, j]`` is mode n at floor j (bottom to top), normalised to 1 at the roof; a mode
+    without roof motion (``roof_free[n]``, a mode confined below a very soft storey) is
+    normalised to its largest value instead.
     ``participation[n]`` is Gamma_n = phi_n^T M 1 / phi_n^T M phi_n, ``effective_mass[n]`` is
     M_n* = (phi_n^T M 1)^2 / phi_n^T M phi_n in kg.
     """
@@ -33,6 +37,7 @@ class Modes:
     shapes: np.ndarray
     participation: np.ndarray
     effective_mass: np.ndarray
+    roof_free: np.ndarray
 
     @property
     def periods(self) -> np.ndarray:
@@ -59,11 +64,13 @@ def modes(masses: np.ndarray, stiffnesses: np.ndarray) -> Modes:
 
     m = np.asarray(masses, dtype=float)
     eigenvalues, vectors = eigh(stiffness_matrix(stiffnesses), np.diag(m))
-    shapes = (vectors / vectors[-1, :]).T
+    largest = vectors[np.argmax(np.abs(vectors), axis=0), np.arange(vectors.shape[1])]
+    roof_free = np.abs(vectors[-1, :]) < ROOF_TOLERANCE * np.abs(largest)
+    shapes = (vectors / np.where(roof_free, largest, vectors[-1, :])).T
     modal_mass = np.einsum("nj,j,nj->n", shapes, m, shapes)
     excitation = shapes @ m
     return Modes(omega=np.sqrt(eigenvalues), shapes=shapes, participation=excitation / modal_mass,
-                 effective_mass=excitation**2 / modal_mass)
+                 effective_mass=excitation**2 / modal_mass, roof_free=roof_free)
 
 
 def modes_for_mass_share(ratios: np.ndarray, share: float = MASS_PARTICIPATION_TARGET) -> int:

@@ -85,7 +85,8 @@ def response(ratio: np.ndarray, mu: float, tuning: float, zeta_d: float, zeta_p:
         matrix[:, 0, 1] = matrix[:, 1, 0] = 0.0
     load = np.array([1.0, mu if excitation == "ground" else 0.0], dtype=complex)
     solved = np.linalg.solve(matrix, np.broadcast_to(load, (w.size, 2))[..., None])[..., 0]
-    return solved[:, 0], solved[:, 1] - solved[:, 0]
+    stroke = solved[:, 1] - solved[:, 0] if mu > 0 else np.zeros_like(solved[:, 0])
+    return solved[:, 0], stroke
 
 
 def peak(mu: float, tuning: float, zeta_d: float, zeta_p: float, excitation: str = "force",

@@ -60,6 +60,8 @@ def compute(inputs: Inputs) -> Result:
         "modes_for_90_percent": quantity("Modes for 90 % of the mass", "count", float(needed)),
     }
     flags = [Flag("info", f"{needed} of {len(masses)} modes reach 90 % of the mass")]
+    flags.extend(Flag("info", f"mode {n + 1} has no roof motion: its shape is scaled to its largest value")
+                 for n in np.nonzero(found.roof_free)[0])
     values.update(_rayleigh(inputs, found.omega, zeta, flags))
     flags.extend(Flag("warning", f"soft storey {storey}: stiffness {reason}")
                  for storey, reason in storeys.soft_storeys(stiffnesses))
