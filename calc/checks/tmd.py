@@ -13,6 +13,9 @@ from calc.spec import CheckSpec, Field, Inputs, quantity
 MISTUNING = 0.05
 """Damper frequency error shown either side of the optimum (5 %)."""
 
+CHART_POINTS = 120
+"""Points per chart curve (about twice the plot width); an even count never lands on r = 1."""
+
 FIELDS = (
     Field("frequency", "Mode frequency", "frequency", "2.1 Hz", "Hz", shared=True,
           help="natural frequency of the mode to be damped"),
@@ -135,7 +138,9 @@ def _flags(mu: float, zeta_p: float, peak: float, low: float, high: float) -> li
 def _series(mu: float, best: tmd.Optimum, zeta_p: float, excitation: str) -> dict[str, np.ndarray]:
     """Response curves for the chart: with the damper, without, and mistuned either side."""
     spread = max(0.3, 3 * math.sqrt(mu))
-    ratio = 1 + spread * np.linspace(-1.0, 1.0, 240)
+    ratio = 1 + spread * np.linspace(-1.0, 1.0, CHART_POINTS)
+    if 0 < zeta_p < math.sqrt(0.5):
+        ratio = np.sort(np.append(ratio, math.sqrt(1 - 2 * zeta_p**2)))  # the bare mode's resonant peak
     ratio = ratio[ratio >= 0.05]
     with_damper = np.abs(tmd.response(ratio, mu, best.tuning, best.damping, zeta_p, excitation)[0])
     without = np.abs(tmd.response(ratio, 0.0, 1.0, 0.0, zeta_p, excitation)[0])
