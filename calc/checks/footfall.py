@@ -23,13 +23,13 @@ FIELDS = (
           help="one or more vertical natural frequencies"),
     Field("lateral_frequency", "Lateral frequencies", "frequency", "1.05 Hz", "Hz", many=True, required=False,
           help="lateral (horizontal) or torsional natural frequencies"),
-    Field("structure", "Structure", "choice", "footbridge", choices=footfall.STRUCTURES,
-          help="footbridge adds the footbridge guides' risk ranges and the EN 1990 limits"),
+    Field("structure", "Structure", "choice", "footbridge", choices=footfall.STRUCTURES, required=False,
+          help="footbridge (default) adds the footbridge guides' risk ranges and the EN 1990 limits"),
 )
 
 
 def compute(inputs: Inputs) -> Result:
-    structure = inputs.text("structure")
+    structure = inputs.text("structure") if inputs.has("structure") else "footbridge"
     values: dict[str, Value] = {}
     flags: list[Flag] = []
     series: dict[str, np.ndarray] = {}

@@ -11,6 +11,8 @@ from calc.spec import CheckSpec, Field, Inputs, quantity
 
 MAX_STIFFNESS_SPREAD = 1e6
 """Largest ratio between the stiffest and the softest storey accepted (beyond it the chain is ill-posed)."""
+DEFAULT_DAMPING = 0.05
+"""Damping ratio of every mode when none is given (the usual 5 % of design spectra)."""
 CHART_MODES = 3
 """Mode shapes kept as chart series."""
 
@@ -21,7 +23,8 @@ FIELDS = (
           help="lateral stiffness of each storey, bottom to top"),
     Field("heights", "Storey heights", "length", "4.5 m, 3.5 m, 3.5 m", "m", many=True, required=False,
           help="bottom to top; gives drift ratios and the chart's height axis"),
-    Field("damping", "Damping ratio", "ratio", "5 %", "", help="of every mode, for Rayleigh damping and CQC"),
+    Field("damping", "Damping ratio", "ratio", "5 %", "", required=False,
+          help="of every mode, for Rayleigh damping and CQC (default 5 %)"),
     Field("rayleigh_modes", "Rayleigh modes", "count", "1, 2", "", many=True, required=False,
           help="the two modes given the damping ratio exactly"),
 )
@@ -42,7 +45,7 @@ COMBINATION_REFERENCE = Reference("Modal peaks combined by SRSS and by CQC",
 
 def compute(inputs: Inputs) -> Result:
     masses, stiffnesses = _chain(inputs)
-    zeta = inputs.value("damping", minimum=0.0, maximum=0.5)
+    zeta = inputs.optional("damping", DEFAULT_DAMPING, minimum=0.0, maximum=0.5) or 0.0
     found = storeys.modes(masses, stiffnesses)
     total = float(masses.sum())
     ratios = found.effective_mass_ratio(total)

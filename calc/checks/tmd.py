@@ -26,8 +26,8 @@ FIELDS = (
           help="damper mass / modal mass, 0.1 % to 50 %"),
     Field("target_damping", "Target equivalent damping", "ratio", "", "", group="size",
           help="damping of a single mass with the same resonant peak; solves for the mass ratio"),
-    Field("excitation", "Excitation", "choice", "force", choices=tmd.EXCITATIONS,
-          help="force: harmonic force on the structure (Den Hartog); ground: harmonic ground acceleration "
+    Field("excitation", "Excitation", "choice", "force", choices=tmd.EXCITATIONS, required=False,
+          help="force (default): harmonic force on the structure (Den Hartog); ground: harmonic ground acceleration "
                "(Warburton)"),
     Field("force", "Force amplitude", "force", "", "kN", required=False,
           help="harmonic force for the displacement and damper stroke (excitation force)"),
@@ -50,7 +50,7 @@ def compute(inputs: Inputs) -> Result:
     frequency = inputs.value("frequency", positive=True)
     modal_mass = inputs.value("modal_mass", positive=True)
     zeta_p = inputs.value("damping", minimum=0.0, maximum=0.5)
-    excitation = inputs.text("excitation")
+    excitation = inputs.text("excitation") if inputs.has("excitation") else "force"
     flags: list[Flag] = []
     if inputs.has("mass_ratio"):
         mu = inputs.value("mass_ratio", minimum=tmd.MIN_MASS_RATIO, maximum=tmd.MAX_MASS_RATIO)
