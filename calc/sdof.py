@@ -67,6 +67,13 @@ def free_response(time: np.ndarray, omega_n: float, zeta: float, u0: float, v0: 
     return a1 * np.exp(s1 * t) + a2 * np.exp(s2 * t)
 
 
+def free_envelope(time: np.ndarray, omega_n: float, zeta: float, u0: float, v0: float) -> np.ndarray:
+    """Envelope A e^(-zeta omega_n t) (m) of the under- or undamped free response, A its amplitude at t = 0."""
+    omega_d = omega_n * math.sqrt(1.0 - zeta**2)
+    amplitude = math.hypot(u0, (v0 + zeta * omega_n * u0) / omega_d)
+    return amplitude * np.exp(-zeta * omega_n * np.asarray(time, dtype=float))
+
+
 def response_duration(omega_n: float, zeta: float) -> float:
     """A span (s) that shows the free response: the decay to about 5 %, 3 to 30 periods."""
     period = 2.0 * math.pi / omega_n
@@ -74,5 +81,5 @@ def response_duration(omega_n: float, zeta: float) -> float:
         return 5.0 * period
     if zeta < 1.0:
         return min(max(3.0 / (zeta * omega_n), 3.0 * period), 30.0 * period)
-    slow = omega_n * (zeta - math.sqrt(zeta**2 - 1.0))
+    slow = omega_n / (zeta + math.sqrt(zeta**2 - 1.0))  # = omega_n (zeta - sqrt(zeta^2 - 1)), no cancellation
     return min(3.0 / slow, 30.0 * period)

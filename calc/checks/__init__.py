@@ -2,11 +2,14 @@
 
 from __future__ import annotations
 
-from calc.checks import footfall, sdof, storeys, tmd
+from calc.checks import footfall, forced, isolate, member, sdof, storeys, tmd
 from calc.spec import CheckSpec
 
 SPECS: tuple[CheckSpec, ...] = (
     sdof.SPEC,
+    member.SPEC,
+    forced.SPEC,
+    isolate.SPEC,
     storeys.SPEC,
     tmd.SPEC,
     footfall.SPEC,

@@ -5,6 +5,7 @@ from __future__ import annotations
 import numpy as np
 
 from calc import footfall
+from calc.checks.guard import overflow_guard
 from calc.footfall import Band
 from calc.result import Flag, Reference, Result, Value
 from calc.spec import CheckSpec, Field, Inputs, quantity, word
@@ -28,6 +29,7 @@ FIELDS = (
 )
 
 
+@overflow_guard("frequency")
 def compute(inputs: Inputs) -> Result:
     structure = inputs.text("structure") if inputs.has("structure") else "footbridge"
     values: dict[str, Value] = {}

@@ -7,6 +7,7 @@ import math
 import numpy as np
 
 from calc import sdof
+from calc.checks.guard import overflow_guard
 from calc.result import Flag, Reference, Result
 from calc.spec import CheckSpec, Field, Inputs, quantity, word
 
@@ -29,6 +30,7 @@ REFERENCES = (
 )
 
 
+@overflow_guard("mass")
 def compute(inputs: Inputs) -> Result:
     mass = inputs.value("mass", positive=True)
     if inputs.has("stiffness"):
@@ -70,6 +72,8 @@ def compute(inputs: Inputs) -> Result:
         flags.append(Flag("info", "no initial condition given: response shown for 1 mm initial displacement"))
     time = np.linspace(0.0, sdof.response_duration(omega_n, zeta), 801)
     series = {"time": time, "displacement": sdof.free_response(time, omega_n, zeta, u0, v0)}
+    if 0 < zeta < 1:
+        series["envelope"] = sdof.free_envelope(time, omega_n, zeta, u0, v0)
     return inputs.result(values, series=series, flags=tuple(flags), references=REFERENCES)
 
 

@@ -6,6 +6,7 @@ from __future__ import annotations
 import numpy as np
 
 from calc import storeys
+from calc.checks.guard import overflow_guard
 from calc.result import Flag, Reference, Result, Value
 from calc.spec import CheckSpec, Field, Inputs, quantity
 
@@ -43,6 +44,7 @@ COMBINATION_REFERENCE = Reference("Modal peaks combined by SRSS and by CQC",
                                   "Structures, ch. 13")
 
 
+@overflow_guard("masses")
 def compute(inputs: Inputs) -> Result:
     masses, stiffnesses = _chain(inputs)
     zeta = inputs.optional("damping", DEFAULT_DAMPING, minimum=0.0, maximum=0.5) or 0.0

@@ -7,6 +7,7 @@ import math
 import numpy as np
 
 from calc import tmd
+from calc.checks.guard import overflow_guard
 from calc.result import Flag, Reference, Result
 from calc.spec import CheckSpec, Field, Inputs, quantity
 
@@ -42,10 +43,11 @@ REFERENCES = {
                         "Warburton, Earthquake Engineering and Structural Dynamics 10 (1982)"),
 }
 RESPONSE_REFERENCE = Reference("Peaks from the two-mass frequency response (complex linear solve on a fine "
-                               "frequency grid, refined by a bounded search)",
+                               "frequency grid, refined by zooming into each peak)",
                                "Den Hartog, Mechanical Vibrations; Clough & Penzien, Dynamics of Structures")
 
 
+@overflow_guard("modal_mass")
 def compute(inputs: Inputs) -> Result:
     frequency = inputs.value("frequency", positive=True)
     modal_mass = inputs.value("modal_mass", positive=True)

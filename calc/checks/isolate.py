@@ -1,0 +1,121 @@
+"""Check `isolate`: a machine on resilient mounts, or the mounts a target isolation needs."""
+
+from __future__ import annotations
+
+import math
+
+import numpy as np
+
+from calc import harmonic, isolation, sdof
+from calc.checks.guard import overflow_guard
+from calc.result import Flag, Reference, Result, Value
+from calc.spec import CheckSpec, Field, Inputs, quantity
+from calc.units import STANDARD_GRAVITY
+
+FIELDS = (
+    Field("frequency", "Operating frequency", "frequency", "740 rpm", "Hz", shared=True,
+          help="Hz, or a speed in rpm"),
+    Field("mass", "Mass on the mounts", "mass", "9.6 t", "t", shared=True, help="a mass, or a weight read as W/g0"),
+    Field("mounts", "Number of mounts", "count", "4", ""),
+    Field("damping", "Mount damping ratio", "ratio", "2 %", "",
+          help="steel springs about 0.5-1 %, rubber about 5 %"),
+    Field("stiffness", "Mount stiffness, total", "stiffness", "", "kN/mm", required=False,
+          help="all mounts together; give it, a target isolation, or both"),
+    Field("target_isolation", "Target isolation", "ratio", "90 %", "", required=False,
+          help="fraction of the force kept from the support, e.g. 90 %"),
+)
+
+REFERENCES = (
+    Reference("Force transmissibility of a damped mass on mounts over a rigid support, "
+              "T = sqrt(1+(2 zeta r)^2)/sqrt((1-r^2)^2+(2 zeta r)^2), T = 1 at r = sqrt(2)",
+              "Chopra, Dynamics of Structures, sec. 3.5; Den Hartog, Mechanical Vibrations, ch. 2"),
+    Reference("Required natural frequency solved from the damped T (a quadratic in r^2), not the undamped "
+              "1/(r^2-1); peak T at r^2 = 2/(1+sqrt(1+8 zeta^2))",
+              "Rao, Mechanical Vibrations, sec. 9.10; Clough & Penzien, Dynamics of Structures, ch. 3"),
+)
+
+
+@overflow_guard("frequency")
+def compute(inputs: Inputs) -> Result:
+    frequency = inputs.value("frequency", positive=True)
+    mass = inputs.value("mass", positive=True)
+    mounts = int(inputs.value("mounts", positive=True))
+    zeta = inputs.value("damping", minimum=0.0)
+    if zeta == 0:
+        raise inputs.error("damping", "must be greater than zero: transmissibility at resonance is unbounded "
+                                      "without damping; steel springs have about 0.5 %")
+    if not inputs.has("stiffness") and not inputs.has("target_isolation"):
+        raise inputs.error("stiffness", "give the mounts' total stiffness or a target isolation")
+    values: dict[str, Value] = {}
+    flags: list[Flag] = []
+    required_stiffness = None
+    if inputs.has("target_isolation"):
+        target = _target(inputs)
+        ratio = isolation.ratio_for_transmissibility(1.0 - target, zeta)
+        required_frequency = frequency / ratio
+        required_stiffness = isolation.stiffness_for_frequency(mass, required_frequency)
+        values["required_natural_frequency"] = quantity("Required natural frequency (at most)", "frequency",
+                                                        required_frequency)
+        values["required_stiffness"] = quantity("Required stiffness, total (at most)", "stiffness",
+                                                required_stiffness)
+        undamped = frequency / isolation.undamped_ratio_for_transmissibility(1.0 - target)
+        flags.append(Flag("info", f"solved with damping: the undamped formula would allow {undamped:.4g} Hz"))
+    stiffness = inputs.value("stiffness", positive=True) if inputs.has("stiffness") else required_stiffness
+    assert stiffness is not None
+    natural_frequency = sdof.angular_frequency(stiffness, mass) / (2 * math.pi)
+    r = frequency / natural_frequency
+    transmitted = float(harmonic.transmissibility(r, zeta))
+    peak_ratio = isolation.peak_transmissibility_ratio(zeta)
+    values = {
+        "natural_frequency": quantity("Natural frequency on the mounts", "frequency", natural_frequency),
+        "frequency_ratio": quantity("Frequency ratio r = f/fn", "number", r),
+        "transmissibility": quantity("Transmissibility T", "number", transmitted),
+        "isolation": quantity("Isolation 1 - T", "ratio", 1.0 - transmitted),
+        **values,
+        "stiffness": quantity("Mount stiffness, total", "stiffness", stiffness),
+        "stiffness_per_mount": quantity("Stiffness per mount", "stiffness", stiffness / mounts),
+        "static_deflection": quantity("Static deflection under the weight", "length",
+                                      mass * STANDARD_GRAVITY / stiffness),
+        "peak_transmissibility": quantity("Peak T at start-up", "number", isolation.peak_transmissibility(zeta)),
+        "peak_frequency": quantity("Frequency of the peak T", "frequency", peak_ratio * natural_frequency),
+    }
+    flags += _flags(inputs, r, transmitted, natural_frequency, zeta, required_stiffness, stiffness)
+    grid = np.union1d(np.linspace(0.0, max(3.0, 1.25 * r), 601), [peak_ratio, isolation.AMPLIFYING_RATIO, r])
+    series = {"frequency_ratio": grid, "transmissibility": harmonic.transmissibility(grid, zeta)}
+    return inputs.result(values, series=series, flags=tuple(flags), references=REFERENCES)
+
+
+def _target(inputs: Inputs) -> float:
+    target = inputs.value("target_isolation")
+    if not 0.0 < target < 1.0:
+        raise inputs.error("target_isolation", "must be between 0 % and 100 %, both excluded")
+    return target
+
+
+def _flags(inputs: Inputs, r: float, transmitted: float, natural_frequency: float, zeta: float,
+           required_stiffness: float | None, stiffness: float) -> list[Flag]:
+    flags = []
+    if r < isolation.AMPLIFYING_RATIO:
+        flags.append(Flag("warning", f"frequency ratio {r:.3g} is below sqrt(2): the mounts amplify the force "
+                                     f"(T = {transmitted:.3g})"))
+    if abs(r - 1.0) <= harmonic.RESONANCE_BAND:
+        flags.append(Flag("warning", "operating within +/-20 % of the mounted natural frequency"))
+    if r > 1.0:
+        flags.append(Flag("caution", f"start-up and run-down pass through {natural_frequency:.4g} Hz, where T "
+                                     f"reaches {isolation.peak_transmissibility(zeta):.3g}"))
+    if required_stiffness is not None and stiffness > required_stiffness * (1 + 1e-9):
+        target = inputs.value("target_isolation")
+        flags.append(Flag("warning", f"isolation {100 * (1 - transmitted):.3g} % is short of the target "
+                                     f"{100 * target:.3g} %: the mounts must be softer"))
+    flags.append(Flag("info", "assumes a rigid support: on a flexible floor keep the mounted frequency well "
+                              "below the floor's own"))
+    return flags
+
+
+SPEC = CheckSpec(
+    id="isolate",
+    title="Machine isolation",
+    summary="transmissibility of a machine on mounts, or the mounts a target isolation needs",
+    fields=FIELDS,
+    compute=compute,
+)
