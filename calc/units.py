@@ -210,6 +210,8 @@ def format_number(value: float, digits: int = 4) -> str:
     if value == 0 or not math.isfinite(value):
         return f"{value:g}"
     exponent = math.floor(math.log10(abs(value)))
+    if abs(round(value, digits - 1 - exponent)) >= 10.0 ** (exponent + 1):
+        exponent += 1  # rounding carried into the next decade: 0.099999 -> 0.1000
     if -4 <= exponent < 6:
         decimals = max(0, digits - 1 - exponent)
         rounded = round(value, decimals)
