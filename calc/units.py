@@ -240,6 +240,7 @@ def format_quantity(quantity: pint.Quantity, kind: str, system: str = "si", digi
     magnitude = quantity.to(unit).magnitude
     shown_unit = KINDS[kind].names.get(unit, unit)
     rows = magnitude if getattr(magnitude, "ndim", 0) == 2 else [magnitude]
+
     def shown(v: float) -> str:
         return f"{v:.0f}" if KINDS[kind].integer else format_number(v, digits)
 
@@ -249,7 +250,7 @@ def format_quantity(quantity: pint.Quantity, kind: str, system: str = "si", digi
 
 def _flat(magnitude: Any) -> list[float]:
     """The numbers of a scalar or array magnitude, in order."""
-    return [float(v) for v in magnitude.ravel()] if hasattr(magnitude, "ravel") else [float(magnitude)]
+    return [float(v) for v in np.ravel(magnitude)]
 
 
 def to_si(quantity: pint.Quantity, kind: str) -> float:
