@@ -2,7 +2,20 @@
 
 from __future__ import annotations
 
-from calc.checks import decay, decrement, footfall, forced, isolate, member, sdof, storeys, tmd
+from calc.checks import (
+    decay,
+    decrement,
+    design_spectrum,
+    footfall,
+    forced,
+    isolate,
+    member,
+    period,
+    sdof,
+    spectrum,
+    storeys,
+    tmd,
+)
 from calc.spec import CheckSpec
 
 SPECS: tuple[CheckSpec, ...] = (
@@ -12,6 +25,9 @@ SPECS: tuple[CheckSpec, ...] = (
     isolate.SPEC,
     decay.SPEC,
     decrement.SPEC,
+    period.SPEC,
+    design_spectrum.SPEC,
+    spectrum.SPEC,
     storeys.SPEC,
     tmd.SPEC,
     footfall.SPEC,

@@ -12,7 +12,7 @@ from collections.abc import Callable
 from typing import Any
 
 from calc.result import Result
-from tui.charts import decay, footfall, forced, isolate, sdof, storeys, tmd
+from tui.charts import decay, design_spectrum, footfall, forced, isolate, period, sdof, spectrum, storeys, tmd
 
 DrawFunction = Callable[[Any, Result, str], None]
 """draw(plt, result, system) where system is 'si' or 'us'."""
@@ -22,6 +22,9 @@ CHARTS: dict[str, tuple[DrawFunction, ...]] = {
     "forced": (forced.draw_amplification, forced.draw_phase),
     "isolate": (isolate.draw_transmissibility,),
     "decay": (decay.draw_record, decay.draw_spectrum),
+    "period": (period.draw_period,),
+    "design-spectrum": (design_spectrum.draw_spectrum,),
+    "spectrum": (spectrum.draw_psa, spectrum.draw_history, spectrum.draw_record),
     "storeys": (storeys.draw_mode_shapes,),
     "tmd": (tmd.draw_response, tmd.draw_mistuning),
     "footfall": (footfall.draw_vertical, footfall.draw_lateral),
