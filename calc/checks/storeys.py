@@ -6,8 +6,9 @@ from __future__ import annotations
 import numpy as np
 
 from calc import storeys
+from calc.checks import storeys_demand as demand
 from calc.checks.guard import overflow_guard
-from calc.result import Flag, Reference, Result, Value
+from calc.result import SEISMIC_CAUTION, Flag, Reference, Result, Value
 from calc.spec import CheckSpec, Field, Inputs, quantity
 
 MAX_STIFFNESS_SPREAD = 1e6
@@ -28,6 +29,7 @@ FIELDS = (
           help="of every mode, for Rayleigh damping and CQC (default 5 %)"),
     Field("rayleigh_modes", "Rayleigh modes", "count", "1, 2", "", many=True, required=False,
           help="the two modes given the damping ratio exactly"),
+    *demand.FIELDS,
 )
 
 REFERENCES = (
@@ -39,9 +41,6 @@ REFERENCES = (
     Reference("Soft storey: stiffness below 70 % of the storey above or 80 % of the average of the three above",
               "ASCE 7-16 Table 12.3-2, type 1a (from memory)"),
 )
-COMBINATION_REFERENCE = Reference("Modal peaks combined by SRSS and by CQC",
-                                  "Der Kiureghian (1981) correlation coefficients; Chopra, Dynamics of "
-                                  "Structures, ch. 13")
 
 
 @overflow_guard("masses")
@@ -70,8 +69,12 @@ def compute(inputs: Inputs) -> Result:
     values.update(_rayleigh(inputs, found.omega, zeta, flags))
     flags.extend(Flag("warning", f"soft storey {storey}: stiffness {reason}")
                  for storey, reason in storeys.soft_storeys(stiffnesses))
-    series = _series(inputs, found)
-    return inputs.result(values, series=series, flags=tuple(flags), references=REFERENCES)
+    references: tuple[Reference, ...] = REFERENCES
+    if inputs.has("ground_acceleration"):
+        heights = inputs.array("heights") if inputs.has("heights") else None
+        values.update(demand.modal_demand(inputs, found, masses, heights, zeta, flags))
+        references += demand.REFERENCES
+    return inputs.result(values, series=_series(inputs, found), flags=tuple(flags), references=references)
 
 
 def _chain(inputs: Inputs) -> tuple[np.ndarray, np.ndarray]:
@@ -130,5 +133,6 @@ SPEC = CheckSpec(
     summary="periods, mode shapes, effective masses and modal seismic demand of a shear building",
     fields=FIELDS,
     compute=compute,
+    caution=SEISMIC_CAUTION,
     sends={"period": "period"},
 )

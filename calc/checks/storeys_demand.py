@@ -1,0 +1,94 @@
+"""Seismic part of the `storeys` check: EN 1998-1 spectrum per mode, modal peaks, SRSS and CQC.
+
+The spectrum itself comes from :mod:`calc.seismic` (EN 1998-1 3.2.2.2 elastic and 3.2.2.5 design
+spectra, recommended Table 3.2 / 3.3 values).
+"""
+
+from __future__ import annotations
+
+import numpy as np
+
+from calc import storeys
+from calc.result import Flag, Reference, Value
+from calc.spec import Field, Inputs, quantity, word
+
+SPECTRA = ("elastic", "design")
+CLOSE_PERIODS = 0.9
+"""Modes whose periods are within 10 % of each other are not independent (SRSS unsafe)."""
+
+FIELDS = (
+    Field("ground_acceleration", "Design ground acceleration ag", "acceleration", "0.16 g", "m/s^2",
+          required=False, help="on type A ground, before the importance factor; leave empty for modes only"),
+    Field("importance", "Importance factor", "number", "1.0", "", required=False, help="gamma_I (default 1.0)"),
+    Field("ground_type", "Ground type", "choice", "C", choices=("A", "B", "C", "D", "E"), required=False,
+          help="EN 1998-1 Table 3.1 (default C)"),
+    Field("spectrum_type", "Spectrum type", "choice", "1", choices=("1", "2"), required=False,
+          help="EN 1998-1 Type 1 or 2 (default 1)"),
+    Field("spectrum", "Spectrum", "choice", "elastic", choices=SPECTRA, required=False,
+          help="elastic Se with the damping given, or design Sd with the behaviour factor (default elastic)"),
+    Field("behaviour_factor", "Behaviour factor q", "number", "", "", required=False,
+          help="for the design spectrum; displacements are multiplied by q (EN 1998-1 4.3.4)"),
+)
+
+REFERENCES = (
+    Reference("Spectral acceleration per mode, recommended values of Table 3.2 / 3.3",
+              "EN 1998-1:2004 3.2.2.2 (elastic, eta = sqrt(10/(5+xi)) >= 0.55) and 3.2.2.5 (design, beta = 0.2)"),
+    Reference("Modal peaks u = Gamma phi Sa / omega^2 combined by SRSS and by CQC",
+              "Der Kiureghian (1981) correlation coefficients; Chopra, Dynamics of Structures, ch. 13; "
+              "EN 1998-1:2004 4.3.3.3.2"),
+    Reference("Design displacements d_s = q d_e", "EN 1998-1:2004 4.3.4(1)"),
+)
+
+
+def modal_demand(inputs: Inputs, found: storeys.Modes, masses: np.ndarray, heights: np.ndarray | None,
+                 zeta: float, flags: list[Flag]) -> dict[str, Value]:
+    """Spectral accelerations per mode and the combined floor displacements, drifts and storey shears."""
+    accelerations, described, q = spectral_accelerations(inputs, found.periods, zeta)
+    peaks = storeys.modal_peaks(found, masses, accelerations)
+    rho = storeys.correlation_cqc(found.omega, zeta)
+    values: dict[str, Value] = {
+        "spectrum_used": word("Spectrum", described),
+        "spectral_acceleration": quantity("Spectral acceleration per mode", "acceleration", accelerations),
+    }
+    for name, label, kind, modal, scale in (
+            ("displacement", "Floor displacement", "length", peaks.displacement, q),
+            ("drift", "Inter-storey drift", "length", peaks.drift, q),
+            ("shear", "Storey shear", "force", peaks.shear, 1.0)):
+        for method, combined in (("srss", storeys.combine_srss(modal)), ("cqc", storeys.combine_cqc(modal, rho))):
+            values[f"{name}_{method}"] = quantity(f"{label}, {method.upper()}", kind, scale * combined)
+    values["base_shear_srss"] = quantity("Base shear, SRSS", "force", values["shear_srss"].si()[0])
+    values["base_shear_cqc"] = quantity("Base shear, CQC", "force", values["shear_cqc"].si()[0])
+    if heights is not None:
+        values["drift_ratio_cqc"] = quantity("Drift ratio, CQC", "ratio", np.array(values["drift_cqc"].si()) / heights)
+    flags.extend(_close_modes(found.periods))
+    if q != 1.0:
+        flags.append(Flag("info", f"displacements and drifts are q = {q:g} times the design-spectrum values"))
+    return values
+
+
+def spectral_accelerations(inputs: Inputs, periods: np.ndarray, zeta: float) -> tuple[np.ndarray, str, float]:
+    """Spectral acceleration (m/s^2) at each period, a description of the spectrum, and the
+    factor q applied to displacements (1 for the elastic spectrum)."""
+    from calc import seismic
+
+    importance = inputs.optional("importance", 1.0, positive=True, maximum=3.0) or 1.0
+    ag = inputs.value("ground_acceleration", positive=True, maximum=30.0) * importance
+    ground = inputs.text("ground_type") if inputs.has("ground_type") else "C"
+    kind = inputs.text("spectrum_type") if inputs.has("spectrum_type") else "1"
+    shape = seismic.recommended_shape(kind, ground)
+    corners = (f"type {kind}, ground {ground}: S {shape.soil_factor:g}, TB {shape.tb:g} s, TC {shape.tc:g} s, "
+               f"TD {shape.td:g} s (recommended)")
+    if (inputs.text("spectrum") if inputs.has("spectrum") else "elastic") == "design":
+        if not inputs.has("behaviour_factor"):
+            raise inputs.error("behaviour_factor", "the design spectrum needs a behaviour factor q, e.g. '4'")
+        q = inputs.value("behaviour_factor", minimum=1.0, maximum=8.0)
+        return seismic.design_spectrum(periods, ag, shape, q), f"EN 1998-1 design Sd, q = {q:g}, {corners}", q
+    eta = seismic.damping_correction(zeta)
+    return seismic.elastic_spectrum(periods, ag, shape, eta), f"EN 1998-1 elastic Se, eta = {eta:.3g}, {corners}", 1.0
+
+
+def _close_modes(periods: np.ndarray) -> list[Flag]:
+    """A caution for neighbouring modes too close in period for SRSS."""
+    close = [n for n in range(1, len(periods)) if periods[n] > CLOSE_PERIODS * periods[n - 1]]
+    return [Flag("caution", f"modes {n} and {n + 1} are within 10 % in period: SRSS is unsafe, use CQC "
+                            "(EN 1998-1:2004 4.3.3.3.2)") for n in close]
