@@ -64,7 +64,7 @@ KINDS: dict[str, Kind] = {k.name: k for k in (
     _kind("count", "count", "", "", ("",), ("",), "'4'", integer=True),
     _kind("angle", "angle", "", "deg", ("deg",), ("deg",), "'30 deg'"),
     _kind("modulus", "modulus", PRESSURE, "Pa", ("GPa", "MPa"), ("ksi",), "'210 GPa' or '29000 ksi'"),
-    _kind("second_moment", "second moment of area", "[length]^4", "m^4", ("m^4", "mm^4"), ("in^4",),
+    _kind("second_moment", "second moment of area", "[length]^4", "m^4", ("m^4", "cm^4", "mm^4"), ("in^4",),
           "'8360 cm^4' or '200 in^4'"),
     _kind("area", "area", "[length]^2", "m^2", ("m^2", "mm^2"), ("ft^2", "in^2"), "'5380 mm^2'"),
     _kind("mass_per_length", "mass per length", "[mass]/[length]", "kg/m", ("t/m", "kg/m"), ("lb/ft",),

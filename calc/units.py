@@ -210,6 +210,8 @@ def format_number(value: float, digits: int = 4) -> str:
     if value == 0 or not math.isfinite(value):
         return f"{value:g}"
     exponent = math.floor(math.log10(abs(value)))
+    if abs(round(value, digits - 1 - exponent)) >= 10.0 ** (exponent + 1):
+        exponent += 1  # rounding carried into the next decade: 0.099999 -> 0.1000
     if -4 <= exponent < 6:
         decimals = max(0, digits - 1 - exponent)
         rounded = round(value, decimals)
@@ -238,6 +240,7 @@ def format_quantity(quantity: pint.Quantity, kind: str, system: str = "si", digi
     magnitude = quantity.to(unit).magnitude
     shown_unit = KINDS[kind].names.get(unit, unit)
     rows = magnitude if getattr(magnitude, "ndim", 0) == 2 else [magnitude]
+
     def shown(v: float) -> str:
         return f"{v:.0f}" if KINDS[kind].integer else format_number(v, digits)
 
@@ -247,7 +250,7 @@ def format_quantity(quantity: pint.Quantity, kind: str, system: str = "si", digi
 
 def _flat(magnitude: Any) -> list[float]:
     """The numbers of a scalar or array magnitude, in order."""
-    return [float(v) for v in magnitude.ravel()] if hasattr(magnitude, "ravel") else [float(magnitude)]
+    return [float(v) for v in np.ravel(magnitude)]
 
 
 def to_si(quantity: pint.Quantity, kind: str) -> float:

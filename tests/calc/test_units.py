@@ -160,6 +160,7 @@ def test_whole_numbers_for_counts() -> None:
 @pytest.mark.parametrize(("value", "text"), [
     (24.1666, "24.17"), (1450.0, "1450"), (0.004, "0.004000"), (123456.0, "123456"), (1.5e-7, "1.500e-07"),
     (-3.14159, "-3.142"), (0.0, "0"),
+    (0.09999999, "0.1000"), (9.99999, "10.00"), (999999.9, "1.000e+06"),
 ])
 def test_four_significant_figures(value: float, text: str) -> None:
     assert format_number(value) == text
