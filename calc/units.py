@@ -199,9 +199,8 @@ def _safe_units(text: str, name: str, unit_text: str, spec: Kind) -> pint.Unit:
     cleaned = _POWER.sub("**", unit_text)
     try:
         return ureg.parse_units(cleaned)
-    # pint's expression parser reports a dangling operator ('A/', '()') by a failed assert
     except (pint.errors.PintError, AttributeError, TypeError, ValueError, SyntaxError,
-            KeyError, IndexError, ZeroDivisionError, tokenize.TokenError, AssertionError) as error:
+            KeyError, IndexError, ZeroDivisionError, AssertionError, tokenize.TokenError) as error:
         raise InputError(name, text, f"unknown unit {unit_text!r}", spec.example) from error
 
 
