@@ -40,14 +40,17 @@ class Band:
 
     ``guide`` bands are a guide's risk ranges for footbridges rather than an activity's forcing.
     ``severe`` bands deserve a warning (first harmonics, maximum-risk ranges), the rest a caution.
+    ``row`` and ``mark`` place the band on a chart: one row per activity or guide, marked by
+    harmonic or risk number.
     """
 
-    short: str
     name: str
     direction: str
     low: float
     high: float
     source: str
+    row: str
+    mark: str
     severe: bool = False
     guide: bool = False
 
@@ -56,33 +59,38 @@ class Band:
         return self.low <= frequency <= self.high
 
     def shown(self) -> str:
-        return f"{self.name} {self.low:g}-{self.high:g} Hz"
+        return f"{self.name} {self.low:g}-{self.high:g}"
 
 
-def _harmonics(short: str, activity: str, rate: tuple[float, float], count: int) -> tuple[Band, ...]:
-    return tuple(Band(f"{short}{h}", f"{activity} harmonic {h}", "vertical", h * rate[0], h * rate[1], BACHMANN,
+def _harmonics(row: str, activity: str, rate: tuple[float, float], count: int) -> tuple[Band, ...]:
+    return tuple(Band(f"{activity} h{h}", "vertical", h * rate[0], h * rate[1], BACHMANN, row, str(h),
                       severe=h == 1) for h in range(1, count + 1))
+
+
+def _guide(name: str, direction: str, low: float, high: float, mark: str, severe: bool = False) -> Band:
+    source, row = (SETRA, "S") if name.startswith("Setra") else (HIVOSS, "H")
+    return Band(name, direction, low, high, source, row, mark, severe=severe, guide=True)
 
 
 BANDS: tuple[Band, ...] = (
     *_harmonics("W", "walking", WALKING, 4),
     *_harmonics("R", "running", RUNNING, 2),
     *_harmonics("J", "jumping", JUMPING, 3),
-    Band("S1", "Setra range 1 (maximum risk)", "vertical", 1.7, 2.1, SETRA, severe=True, guide=True),
-    Band("S2", "Setra range 2 (medium risk)", "vertical", 1.0, 1.7, SETRA, guide=True),
-    Band("S2", "Setra range 2 (medium risk)", "vertical", 2.1, 2.6, SETRA, guide=True),
-    Band("S3", "Setra range 3 (low risk, 2nd harmonic)", "vertical", 2.6, 5.0, SETRA, guide=True),
-    Band("H1", "HiVoSS critical range", "vertical", 1.25, 2.3, HIVOSS, severe=True, guide=True),
-    Band("H2", "HiVoSS 2nd-harmonic range", "vertical", 2.5, 4.6, HIVOSS, guide=True),
-    Band("WL", "walking, lateral (half pacing rate)", "lateral", WALKING[0] / 2, WALKING[1] / 2, BACHMANN,
-         severe=True),
-    Band("SL1", "Setra lateral range 1 (maximum risk)", "lateral", 0.5, 1.1, SETRA, severe=True, guide=True),
-    Band("SL2", "Setra lateral range 2 (medium risk)", "lateral", 0.3, 0.5, SETRA, guide=True),
-    Band("SL2", "Setra lateral range 2 (medium risk)", "lateral", 1.1, 1.3, SETRA, guide=True),
-    Band("SL3", "Setra lateral range 3 (low risk)", "lateral", 1.3, 2.5, SETRA, guide=True),
-    Band("HL", "HiVoSS lateral critical range", "lateral", 0.5, 1.2, HIVOSS, severe=True, guide=True),
+    _guide("Setra 1 max risk", "vertical", 1.7, 2.1, "1", severe=True),
+    _guide("Setra 2 medium risk", "vertical", 1.0, 1.7, "2"),
+    _guide("Setra 2 medium risk", "vertical", 2.1, 2.6, "2"),
+    _guide("Setra 3 low risk", "vertical", 2.6, 5.0, "3"),
+    _guide("HiVoSS critical", "vertical", 1.25, 2.3, "1", severe=True),
+    _guide("HiVoSS 2nd harmonic", "vertical", 2.5, 4.6, "2"),
+    Band("walking lateral", "lateral", WALKING[0] / 2, WALKING[1] / 2, BACHMANN, "W", "1", severe=True),
+    _guide("Setra lateral 1 max risk", "lateral", 0.5, 1.1, "1", severe=True),
+    _guide("Setra lateral 2 medium risk", "lateral", 0.3, 0.5, "2"),
+    _guide("Setra lateral 2 medium risk", "lateral", 1.1, 1.3, "2"),
+    _guide("Setra lateral 3 low risk", "lateral", 1.3, 2.5, "3"),
+    _guide("HiVoSS lateral critical", "lateral", 0.5, 1.2, "1", severe=True),
 )
-"""Every band, vertical first. Guides' footbridge ranges apply to footbridges only."""
+"""Every band, vertical first. Guides' footbridge ranges apply to footbridges only. Lateral walking
+forces repeat at half the pacing rate."""
 
 
 def bands_for(direction: str, structure: str) -> tuple[Band, ...]:

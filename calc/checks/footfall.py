@@ -59,7 +59,7 @@ def _direction_values(direction: str, frequencies: np.ndarray, bands: tuple[Band
     for frequency, margin in zip(frequencies, margins, strict=True):
         f = float(frequency)
         inside = footfall.bands_containing(f, bands)
-        described.append(f"{f:.3g} Hz: " + ("; ".join(b.shown() for b in inside) if inside else "none"))
+        described.append(f"{f:.3g} Hz: " + (", ".join(b.shown() for b in inside) + " Hz" if inside else "none"))
         needed, rule, source = footfall.comfort_check_needed(f, direction, structure)
         sources.add(source)
         verdicts.append(f"{f:.3g} Hz {'needed' if needed else 'not needed'}")

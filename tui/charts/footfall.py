@@ -1,7 +1,7 @@
 """Charts of the `footfall` check: forcing bands and the structure's frequencies.
 
-Rows: W walking, R running, J jumping (marked by harmonic number), S1-S3 Setra risk ranges,
-H HiVoSS ranges, WL lateral walking, SL1-SL3 and HL the lateral ranges.
+Rows: W walking, R running, J jumping (marked by harmonic number), S Setra ranges (marked by
+risk range 1-3), H HiVoSS ranges (1 critical, 2 second harmonic).
 """
 
 from __future__ import annotations
@@ -15,13 +15,6 @@ AXIS_MIN_HZ = 3.0
 """The frequency axis reaches at least this far (Hz)."""
 
 
-def _row(short: str) -> tuple[str, str]:
-    """Chart row and marker of a band: an activity's harmonics share a row, marked by their number."""
-    if short[0] in "WRJ" and short[1:].isdigit():
-        return short[0], short[1:]
-    return ("H" if short in ("H1", "H2") else short), "="
-
-
 def _draw(plt: Any, result: Result, direction: str, frequencies_name: str) -> None:
     series = result.series
     rows: dict[str, int] = {}
@@ -30,21 +23,20 @@ def _draw(plt: Any, result: Result, direction: str, frequencies_name: str) -> No
         band = BANDS[int(index)]
         if band.direction != direction:
             continue
-        key, marker = _row(band.short)
-        row = rows.setdefault(key, len(rows) + 1)
-        plt.plot([float(low), float(high)], [row, row], marker=marker)
+        row = rows.setdefault(band.row, len(rows) + 1)
+        plt.plot([float(low), float(high)], [row, row], marker=band.mark)
     frequencies = [float(f) for f in series.get(frequencies_name, ())]
-    top = len(rows) + 1
+    top = max(len(rows), 1)
     for frequency in frequencies:
         plt.vline(frequency)
-        plt.plot([frequency] * top, list(range(top)), marker="#")
+        plt.plot([frequency] * top, list(range(1, top + 1)), marker="#")
     highest = max([*frequencies, *(BANDS[int(i)].high for i in series.get("band_index", ())
                                    if BANDS[int(i)].direction == direction)], default=AXIS_MIN_HZ)
     plt.xlim(0, max(AXIS_MIN_HZ, 1.1 * highest))
-    plt.ylim(0, top)
+    plt.ylim(0.5, top + 0.5)
     plt.yticks(list(rows.values()), list(rows))
     shown = ", ".join(f"{f:.3g}" for f in frequencies) or "none"
-    plt.title(f"{direction.capitalize()} bands =, structure # ({shown} Hz)")
+    plt.title(f"{direction.capitalize()} bands, structure # ({shown} Hz)")
     plt.xlabel("frequency Hz")
 
 
