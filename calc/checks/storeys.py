@@ -11,8 +11,9 @@ from calc.checks.guard import overflow_guard
 from calc.result import SEISMIC_CAUTION, Flag, Reference, Result, Value
 from calc.spec import CheckSpec, Field, Inputs, quantity
 
-MAX_STIFFNESS_SPREAD = 1e6
-"""Largest ratio between the stiffest and the softest storey accepted (beyond it the chain is ill-posed)."""
+MAX_SPREAD = 1e6
+"""Largest ratio between the largest and smallest storey mass, or stiffness, accepted (beyond it the
+chain is ill-conditioned)."""
 DEFAULT_DAMPING = 0.05
 """Damping ratio of every mode when none is given (the usual 5 % of design spectra)."""
 CHART_MODES = 3
@@ -63,12 +64,12 @@ def compute(inputs: Inputs) -> Result:
         "total_mass": quantity("Total mass", "mass", total),
         "modes_for_90_percent": quantity("Modes for 90 % of the mass", "count", float(needed)),
     }
-    flags = [Flag("info", f"{needed} of {len(masses)} modes reach 90 % of the mass")]
+    flags = [Flag("warning", f"soft storey {storey}: stiffness {reason}")
+             for storey, reason in storeys.soft_storeys(stiffnesses)]
+    flags.append(Flag("info", f"{needed} of {len(masses)} modes reach 90 % of the mass"))
     flags.extend(Flag("info", f"mode {n + 1} has no roof motion: its shape is scaled to its largest value")
                  for n in np.nonzero(found.roof_free)[0])
     values.update(_rayleigh(inputs, found.omega, zeta, flags))
-    flags.extend(Flag("warning", f"soft storey {storey}: stiffness {reason}")
-                 for storey, reason in storeys.soft_storeys(stiffnesses))
     references: tuple[Reference, ...] = REFERENCES
     if inputs.has("ground_acceleration"):
         heights = inputs.array("heights") if inputs.has("heights") else None
@@ -85,8 +86,8 @@ def _chain(inputs: Inputs) -> tuple[np.ndarray, np.ndarray]:
         raise inputs.error("stiffnesses", f"{len(stiffnesses)} stiffnesses for {len(masses)} masses: "
                                           "give one per storey")
     for name, array in (("masses", masses), ("stiffnesses", stiffnesses)):
-        if array.max() / array.min() > MAX_STIFFNESS_SPREAD:
-            raise inputs.error(name, f"largest and smallest differ more than {MAX_STIFFNESS_SPREAD:.0e} times")
+        if array.max() / array.min() > MAX_SPREAD:
+            raise inputs.error(name, f"largest and smallest differ more than {MAX_SPREAD:.0e} times")
     if inputs.has("heights"):
         heights = inputs.array("heights", positive=True)
         if len(heights) != len(masses):
