@@ -22,17 +22,20 @@ MAX_LIST_TEXT = 2000
 """Longest text accepted in a list field (characters)."""
 MAX_LIST_ITEMS = 200
 """Most items accepted in a list field."""
+_BARE_NUMBER = re.compile(r"^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$")
 
 
 @dataclass(frozen=True)
 class Field:
     """One input of a check.
 
-    ``kind`` is a key of :data:`calc.kinds.KINDS`, or ``"choice"`` (one of ``choices``)
-    or ``"path"`` (a file). ``unit`` is the unit a bare number takes and is shown in
-    the label. Fields sharing a ``group`` are alternatives: exactly one is given.
-    ``many`` makes it a comma-separated list. ``shared`` fields carry their value to
-    other checks of a session that have a field of the same name.
+    ``kind`` is a key of :data:`calc.kinds.KINDS`, or ``"choice"`` (one of ``choices``),
+    ``"path"`` (a file) or ``"text"`` (free text the check reads itself, e.g. a column
+    name). ``unit`` is the unit a bare number takes and is shown in the label. Fields
+    sharing a ``group`` are alternatives: exactly one is given. ``many`` makes it a
+    comma-separated list (numbers separated by blanks, '5 10 Hz', are items too).
+    ``shared`` fields carry their value to other checks of a session that have a field
+    of the same name.
     """
 
     name: str
@@ -123,6 +126,8 @@ def _example(spec_field: Field) -> str:
         return " | ".join(spec_field.choices)
     if spec_field.kind == "path":
         return "'decay.csv'"
+    if spec_field.kind == "text":
+        return ""
     return KINDS[spec_field.kind].example
 
 
@@ -133,6 +138,10 @@ def read_field(spec_field: Field, text: str) -> Reading | tuple[Reading, ...] | 
     if spec_field.kind == "path":
         if len(text) > 4096 or "\0" in text:
             raise InputError(spec_field.label, text, "not a usable path", "'decay.csv'")
+        return text
+    if spec_field.kind == "text":
+        if len(text) > MAX_LIST_TEXT or not text.isprintable():
+            raise InputError(spec_field.label, text, "not usable text")
         return text
     if spec_field.many:
         return _read_list(spec_field, text)
@@ -152,7 +161,7 @@ def _read_list(spec_field: Field, text: str) -> tuple[Reading, ...]:
     """Read 'a unit, b unit, c unit'; bare items take the unit of the last item that has one."""
     if len(text) > MAX_LIST_TEXT:
         raise InputError(spec_field.label, text, f"longer than {MAX_LIST_TEXT} characters")
-    items = [item.strip() for item in re.split(r"[,;]", text)]
+    items = [part for item in re.split(r"[,;]", text) for part in _split_bare_numbers(item.strip())]
     if len(items) > MAX_LIST_ITEMS:
         raise InputError(spec_field.label, text, f"more than {MAX_LIST_ITEMS} values")
     if any(not item for item in items):
@@ -163,6 +172,17 @@ def _read_list(spec_field: Field, text: str) -> tuple[Reading, ...]:
     label = spec_field.label
     return tuple(read(item, spec_field.kind, f"{label} #{i + 1}", last_unit)
                  for i, item in enumerate(items))
+
+
+def _split_bare_numbers(item: str) -> list[str]:
+    """'5 10 Hz' -> ['5', '10 Hz']: numbers separated by blanks are items too; others stay whole."""
+    words = item.split()
+    numbers = [bool(_BARE_NUMBER.match(word)) for word in words]
+    if len(words) < 2 or not all(numbers[:-1]) or sum(numbers) < 2:
+        return [item]
+    if not numbers[-1]:
+        return words[:-2] + [f"{words[-2]} {words[-1]}"]
+    return words
 
 
 class Inputs:

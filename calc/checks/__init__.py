@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from calc.checks import footfall, forced, isolate, member, sdof, storeys, tmd
+from calc.checks import decay, decrement, footfall, forced, isolate, member, sdof, storeys, tmd
 from calc.spec import CheckSpec
 
 SPECS: tuple[CheckSpec, ...] = (
@@ -10,6 +10,8 @@ SPECS: tuple[CheckSpec, ...] = (
     member.SPEC,
     forced.SPEC,
     isolate.SPEC,
+    decay.SPEC,
+    decrement.SPEC,
     storeys.SPEC,
     tmd.SPEC,
     footfall.SPEC,

@@ -34,7 +34,7 @@ def test_demo_scenario_answers(spec: CheckSpec) -> None:
 @pytest.mark.parametrize("spec", SPECS, ids=lambda spec: spec.id)
 def test_fields_are_well_formed(spec: CheckSpec) -> None:
     for field in spec.fields:
-        assert field.kind in KINDS or field.kind in ("choice", "path"), field.name
+        assert field.kind in KINDS or field.kind in ("choice", "path", "text"), field.name
         assert not field.choices or field.kind == "choice"
         assert field.shown_label
 

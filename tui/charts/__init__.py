@@ -12,7 +12,7 @@ from collections.abc import Callable
 from typing import Any
 
 from calc.result import Result
-from tui.charts import footfall, forced, isolate, sdof, storeys, tmd
+from tui.charts import decay, footfall, forced, isolate, sdof, storeys, tmd
 
 DrawFunction = Callable[[Any, Result, str], None]
 """draw(plt, result, system) where system is 'si' or 'us'."""
@@ -21,6 +21,7 @@ CHARTS: dict[str, tuple[DrawFunction, ...]] = {
     "sdof": (sdof.draw_free_response,),
     "forced": (forced.draw_amplification, forced.draw_phase),
     "isolate": (isolate.draw_transmissibility,),
+    "decay": (decay.draw_record, decay.draw_spectrum),
     "storeys": (storeys.draw_mode_shapes,),
     "tmd": (tmd.draw_response, tmd.draw_mistuning),
     "footfall": (footfall.draw_vertical, footfall.draw_lateral),

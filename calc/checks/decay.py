@@ -1,0 +1,125 @@
+"""Check `decay`: natural frequency and damping ratio from a recorded free decay."""
+
+from __future__ import annotations
+
+from typing import TYPE_CHECKING
+
+from calc.checks.guard import overflow_guard
+from calc.demo_records import demo_path
+from calc.result import Flag, Reference, Result, Value
+from calc.spec import CheckSpec, Field, Inputs, quantity
+
+if TYPE_CHECKING:
+    from calc.decay import Decay
+
+FIELDS = (
+    Field("file", "Record file", "path", str(demo_path()), positional=True,
+          help="CSV or text: a time column and a signal column, or a signal and --sample-rate"),
+    Field("time_column", "Time column", "text", "", required=False,
+          help="header name or number; default the first column (or one named time)"),
+    Field("signal_column", "Signal column", "text", "", required=False,
+          help="header name or number; default the first column after the time"),
+    Field("sample_rate", "Sample rate", "frequency", "", "Hz", required=False,
+          help="for a file without a time column"),
+    Field("signal_unit", "Signal unit", "text", "", required=False,
+          help="g, m/s^2, mm/s or mm; default from the header, else as in the file"),
+    Field("band", "Band-pass", "frequency", "", "Hz", many=True, required=False,
+          help="two frequencies, low and high, e.g. '5 10'; default automatic"),
+)
+
+REFERENCES = (
+    Reference("Logarithmic decrement over n cycles, zeta = delta / sqrt(4 pi^2 + delta^2)",
+              "Chopra, Dynamics of Structures, sec. 2.2 (free vibration tests)"),
+    Reference("Weighted least-squares fit of ln(peak amplitude) against time; 95 % interval from "
+              "Student's t with n - 2 degrees of freedom", "ordinary linear regression"),
+    Reference("Half-power bandwidth of the decay's spectrum as a cross-check",
+              "Chopra, Dynamics of Structures, ch. 3; Clough & Penzien, Dynamics of Structures, ch. 3"),
+    Reference("Zero-phase Butterworth band-pass in second-order sections", "scipy.signal butter / sosfiltfilt"),
+)
+
+_SIGNAL_KIND = {"acceleration": "acceleration", "velocity": "velocity", "length": "length"}
+
+
+@overflow_guard("file")
+def compute(inputs: Inputs) -> Result:
+    # The analysis modules are imported here, not at the top: every other command starts faster.
+    from calc.decay import DecayError, analyse
+    from calc.records import MAX_SAMPLE_RATE, MIN_SAMPLE_RATE, RecordError, read_record
+
+    path = inputs.text("file")
+    rate = inputs.optional("sample_rate", None, minimum=MIN_SAMPLE_RATE, maximum=MAX_SAMPLE_RATE)
+    band = None
+    if inputs.has("band"):
+        edges = inputs.array("band", positive=True)
+        if len(edges) != 2 or edges[0] >= edges[1]:
+            raise inputs.error("band", "give two frequencies, the low edge first")
+        band = (float(edges[0]), float(edges[1]))
+    record = read_record(path, time_column=_optional_text(inputs, "time_column"),
+                         signal_column=_optional_text(inputs, "signal_column"), sample_rate=rate,
+                         signal_unit=_optional_text(inputs, "signal_unit"))
+    try:
+        found = analyse(record.time, record.signal, record.sample_rate, band)
+    except DecayError as error:
+        others = [name for name in record.columns if name != record.channel_name]
+        hint = f"; other columns: {', '.join(others[:6])} (--signal-column)" if len(others) > 1 else ""
+        raise RecordError(path, f"signal column {record.channel_name!r}: {error}{hint}") from error
+    kind = _SIGNAL_KIND.get(record.quantity, "number")
+    values = _values(found, kind)
+    values["sample_rate"] = quantity("Sample rate", "frequency", record.sample_rate)
+    values["samples"] = quantity("Samples", "number", float(len(record.signal)))
+    notes = tuple(Flag("info", f"{record.channel_name}: {note}") for note in record.notes)
+    return inputs.result(values, series=found.series, flags=notes + found.flags, references=REFERENCES)
+
+
+def _optional_text(inputs: Inputs, name: str) -> str | None:
+    return inputs.text(name) if inputs.has(name) else None
+
+
+def _values(found: Decay, kind: str) -> dict[str, Value]:
+    """Result values of the decay analysis (SI)."""
+    from calc.envelope import damping_from_sigma
+
+    values = {
+        "natural_frequency": quantity("Natural frequency", "frequency", found.natural_frequency),
+        "damping_ratio": quantity("Damping ratio (decay fit)", "ratio", found.damping_ratio),
+        "damping_ratio_low": quantity("Damping ratio, 95 % low", "ratio", found.damping_ratio_low),
+        "damping_ratio_high": quantity("Damping ratio, 95 % high", "ratio", found.damping_ratio_high),
+        "log_decrement": quantity("Log decrement (per cycle)", "number", found.log_decrement),
+        "cycles": quantity("Cycles fitted", "number", found.cycles),
+        "peaks": quantity("Peaks fitted", "number", float(found.fit.count)),
+        "fit_r_squared": quantity("Fit R^2 (ln amplitude)", "number", found.fit.r_squared),
+        "damped_frequency": quantity("Damped frequency", "frequency", found.damped_frequency),
+        "spectral_frequency": quantity("Spectral peak frequency", "frequency", found.spectral_frequency),
+    }
+    if found.zero_crossing_frequency is not None:
+        values["zero_crossing_frequency"] = quantity("Zero-crossing frequency", "frequency",
+                                                     found.zero_crossing_frequency)
+    line = found.half_power
+    if line.damping_ratio is not None and line.low is not None and line.high is not None:
+        values["half_power_damping_ratio"] = quantity("Half-power damping ratio", "ratio", line.damping_ratio)
+        values["half_power_low"] = quantity("Half-power band, low", "frequency", line.low)
+        values["half_power_high"] = quantity("Half-power band, high", "frequency", line.high)
+    if found.halves is not None:
+        large, small = found.halves
+        values["damping_ratio_large_amplitude"] = quantity(
+            "Damping ratio, larger half of peaks", "ratio", damping_from_sigma(large.sigma, found.damped_frequency)[1])
+        values["damping_ratio_small_amplitude"] = quantity(
+            "Damping ratio, smaller half of peaks", "ratio", damping_from_sigma(small.sigma, found.damped_frequency)[1])
+    values["decay_start"] = quantity("Decay start", "time", found.decay_start)
+    values["decay_end"] = quantity("Decay end (into noise)", "time", found.decay_end)
+    values["initial_amplitude"] = quantity("First peak amplitude", kind, found.initial_amplitude)
+    values["noise_rms"] = quantity("Noise RMS (analysed band)", kind, found.noise_rms)
+    if found.band is not None:
+        values["band_low"] = quantity("Band-pass low edge", "frequency", found.band[0])
+        values["band_high"] = quantity("Band-pass high edge", "frequency", found.band[1])
+    return values
+
+
+SPEC = CheckSpec(
+    id="decay",
+    title="Measured decay",
+    summary="natural frequency and damping ratio from a recorded free decay (heel drop, tap, release)",
+    fields=FIELDS,
+    compute=compute,
+    sends={"natural_frequency": "frequency", "damping_ratio": "damping"},
+)
