@@ -71,7 +71,7 @@ def compute(inputs: Inputs) -> Result:
                  for n in np.nonzero(found.roof_free)[0])
     values.update(_rayleigh(inputs, found.omega, zeta, flags))
     references: tuple[Reference, ...] = REFERENCES
-    if inputs.has("ground_acceleration"):
+    if inputs.has("design_ground_acceleration"):
         heights = inputs.array("heights") if inputs.has("heights") else None
         values.update(demand.modal_demand(inputs, found, masses, heights, zeta, flags))
         references += demand.REFERENCES

@@ -1,7 +1,7 @@
 """Seismic part of the `storeys` check: EN 1998-1 spectrum per mode, modal peaks, SRSS and CQC.
 
-The spectrum itself comes from :mod:`calc.seismic` (EN 1998-1 3.2.2.2 elastic and 3.2.2.5 design
-spectra, recommended Table 3.2 / 3.3 values).
+The spectrum comes from :mod:`calc.seismic` (EN 1998-1 3.2.2.2 elastic and 3.2.2.5 design spectra), with
+the ground fields, National Annex overrides and their reading shared with the `design-spectrum` check.
 """
 
 from __future__ import annotations
@@ -9,25 +9,20 @@ from __future__ import annotations
 import numpy as np
 
 from calc import storeys
+from calc.checks import design_spectrum as code_spectrum
 from calc.result import Flag, Reference, Value
 from calc.spec import Field, Inputs, quantity, word
 
-SPECTRA = ("elastic", "design")
 CLOSE_PERIODS = 0.9
 """Modes whose periods are within 10 % of each other are not independent (SRSS unsafe)."""
 
 FIELDS = (
-    Field("ground_acceleration", "Design ground acceleration ag", "acceleration", "0.16 g", "m/s^2",
-          required=False, help="on type A ground, before the importance factor; leave empty for modes only"),
-    Field("importance", "Importance factor", "number", "1.0", "", required=False, help="gamma_I (default 1.0)"),
-    Field("ground_type", "Ground type", "choice", "C", choices=("A", "B", "C", "D", "E"), required=False,
-          help="EN 1998-1 Table 3.1 (default C)"),
-    Field("spectrum_type", "Spectrum type", "choice", "1", choices=("1", "2"), required=False,
-          help="EN 1998-1 Type 1 or 2 (default 1)"),
-    Field("spectrum", "Spectrum", "choice", "elastic", choices=SPECTRA, required=False,
-          help="elastic Se with the damping given, or design Sd with the behaviour factor (default elastic)"),
+    *(Field(f.name, f.label, f.kind, f.default, f.unit, required=False, choices=f.choices, shared=True,
+            help=f.help + ("; leave empty for modes only" if f.name == "design_ground_acceleration" else ""))
+      for f in code_spectrum.GROUND_FIELDS),
     Field("behaviour_factor", "Behaviour factor q", "number", "", "", required=False,
-          help="for the design spectrum; displacements are multiplied by q (EN 1998-1 4.3.4)"),
+          help="gives the design spectrum (EN 1998-1 3.2.2.5); displacements are multiplied by q (4.3.4)"),
+    *code_spectrum.SHAPE_FIELDS,
 )
 
 REFERENCES = (
@@ -71,20 +66,16 @@ def spectral_accelerations(inputs: Inputs, periods: np.ndarray, zeta: float) -> 
     factor q applied to displacements (1 for the elastic spectrum)."""
     from calc import seismic
 
-    importance = inputs.optional("importance", 1.0, positive=True, maximum=3.0) or 1.0
-    ag = inputs.value("ground_acceleration", positive=True, maximum=30.0) * importance
-    ground = inputs.text("ground_type") if inputs.has("ground_type") else "C"
-    kind = inputs.text("spectrum_type") if inputs.has("spectrum_type") else "1"
-    shape = seismic.recommended_shape(kind, ground)
-    corners = (f"type {kind}, ground {ground}: S {shape.soil_factor:g}, TB {shape.tb:g} s, TC {shape.tc:g} s, "
-               f"TD {shape.td:g} s (recommended)")
-    if (inputs.text("spectrum") if inputs.has("spectrum") else "elastic") == "design":
-        if not inputs.has("behaviour_factor"):
-            raise inputs.error("behaviour_factor", "the design spectrum needs a behaviour factor q, e.g. '4'")
-        q = inputs.value("behaviour_factor", minimum=1.0, maximum=8.0)
-        return seismic.design_spectrum(periods, ag, shape, q), f"EN 1998-1 design Sd, q = {q:g}, {corners}", q
+    if not inputs.has("ground_type"):
+        raise inputs.error("ground_type", "give the ground type for the spectrum")
+    shape, kind, note = code_spectrum.read_shape(inputs)
+    ag, _ = code_spectrum.design_ground_acceleration(inputs)
+    corners = f"S {shape.soil_factor:g}, TB {shape.tb:g} s, TC {shape.tc:g} s, TD {shape.td:g} s ({note})"
+    if inputs.has("behaviour_factor"):
+        q = inputs.value("behaviour_factor", minimum=1.0, maximum=10.0)
+        return seismic.design_spectrum(periods, ag, shape, q), f"design Sd, q = {q:g}; {corners}", q
     eta = seismic.damping_correction(zeta)
-    return seismic.elastic_spectrum(periods, ag, shape, eta), f"EN 1998-1 elastic Se, eta = {eta:.3g}, {corners}", 1.0
+    return seismic.elastic_spectrum(periods, ag, shape, eta), f"elastic Se, eta = {eta:.3g}; {corners}", 1.0
 
 
 def _close_modes(periods: np.ndarray) -> list[Flag]:

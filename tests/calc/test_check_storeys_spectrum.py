@@ -16,7 +16,7 @@ G0 = 9.80665  # Source: 3rd CGPM (1901), standard gravity
 # Chopra's two-storey frame (m1 = 2m, m2 = m, k1 = 2k, k2 = k) with m = 100 t, k = 20 kN/mm:
 # omega = sqrt(k/2m) = 10 rad/s and sqrt(2k/m) = 20 rad/s (From memory: Chopra, Dynamics of Structures, ch. 10)
 TWO_STOREYS = {"masses": "200 t, 100 t", "stiffnesses": "40 kN/mm, 20 kN/mm", "heights": "4 m, 3 m",
-               "damping": "5 %", "ground_acceleration": "0.2 g", "ground_type": "C", "spectrum_type": "1"}
+               "damping": "5 %", "design_ground_acceleration": "0.2 g", "ground_type": "C", "spectrum_type": "1"}
 M, K = 100e3, 20e6
 OMEGA = np.array([10.0, 20.0])
 PERIODS = 2 * math.pi / OMEGA
@@ -68,7 +68,7 @@ def test_two_storey_base_shear_and_roof_displacement_by_hand() -> None:
 
 def test_design_spectrum_and_displacements_times_q() -> None:
     q = 4.0
-    result = evaluate(spectrum="design", behaviour_factor="4")
+    result = evaluate(behaviour_factor="4")
     ag, s, tc = 0.2 * G0, 1.15, 0.6
     # Source: EN 1998-1:2004 3.2.2.5, eq. 3.14-3.15 (TB <= T <= TD), lower bound beta ag = 0.2 ag
     expected = [max(ag * s * 2.5 / q * min(1.0, tc / t), 0.2 * ag) for t in PERIODS]
@@ -90,24 +90,32 @@ def test_close_modes_are_flagged() -> None:
 
 
 def test_modes_only_without_ground_acceleration() -> None:
-    result = evaluate(ground_acceleration="")
+    result = evaluate(design_ground_acceleration="")
     assert "base_shear_cqc" not in result.values and "periods" in result.values
 
 
 @pytest.mark.parametrize(("texts", "field", "words"), [
-    ({"ground_acceleration": "-0.1 g"}, "Design ground acceleration ag", "greater than zero"),
-    ({"ground_acceleration": "0 g"}, "Design ground acceleration ag", "greater than zero"),
-    ({"ground_acceleration": "0.2 kg"}, "Design ground acceleration ag", "not a unit of acceleration"),
-    ({"spectrum": "design"}, "Behaviour factor q", "needs a behaviour factor"),
-    ({"spectrum": "design", "behaviour_factor": "0.5"}, "Behaviour factor q", "at least 1"),
+    ({"design_ground_acceleration": "-0.1 g"}, "Ground acceleration agR", "greater than zero"),
+    ({"design_ground_acceleration": "0 g"}, "Ground acceleration agR", "greater than zero"),
+    ({"design_ground_acceleration": "0.2 kg"}, "Ground acceleration agR", "not a unit of acceleration"),
+    ({"ground_type": ""}, "Ground type", "give the ground type"),
+    ({"behaviour_factor": "0.5"}, "Behaviour factor q", "at least 1"),
     ({"importance": "0"}, "Importance factor", "greater than zero"),
     ({"ground_type": "F"}, "Ground type", "not one of the choices"),
     ({"spectrum_type": "3"}, "Spectrum type", "not one of the choices"),
+    ({"corner_period_tb": "0.7 s"}, "Corner period TB", "corner periods must rise"),
 ])
 def test_bad_spectrum_inputs(texts: dict[str, str], field: str, words: str) -> None:
     given = dict(TWO_STOREYS)
     given.update(texts)
     with pytest.raises(InputError) as caught:
-        SPEC.evaluate(given)
+        SPEC.evaluate({k: v for k, v in given.items() if v})
     assert str(caught.value).startswith(field)
     assert words in str(caught.value)
+
+
+def test_national_annex_corner_period_is_used() -> None:
+    result = evaluate(corner_period_tc="0.7 s")
+    # Source: EN 1998-1:2004 3.2.2.2, eq. 3.3: with TC = 0.7 s a 0.628 s mode is on the plateau
+    assert result.values["spectral_acceleration"].si()[0] == pytest.approx(0.2 * G0 * 1.15 * 2.5, rel=1e-12)
+    assert "user values for TC" in result.values["spectrum_used"].si()
