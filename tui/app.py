@@ -1,22 +1,22 @@
-"""The terminal app (placeholder until the app screens land)."""
+"""Start the terminal app (`fieldmode` with no arguments).
+
+Textual reads its settings from the environment when it is first imported, so the
+defaults for work over SSH are set here before the app module (tui.field_app) loads.
+"""
 
 from __future__ import annotations
+
+import os
+
+QUIET_DEFAULTS = {"TEXTUAL_ANIMATIONS": "none", "TEXTUAL_FPS": "30"}
+"""No animation and at most 30 redraws a second, unless the person set otherwise."""
 
 
 def launch() -> int:
     """Open the app; return the exit status."""
-    from textual.app import App, ComposeResult
-    from textual.widgets import Footer, Static
+    for name, value in QUIET_DEFAULTS.items():
+        os.environ.setdefault(name, value)
+    from tui.field_app import FieldApp
 
-    from calc.result import CAUTION
-
-    class Placeholder(App[None]):
-        BINDINGS = [("f10", "quit", "Quit")]
-
-        def compose(self) -> ComposeResult:
-            yield Static("fieldmode: the checks are on the command line for now (fieldmode checks).")
-            yield Static(CAUTION)
-            yield Footer()
-
-    Placeholder().run()
-    return 0
+    result = FieldApp().run()
+    return result if isinstance(result, int) else 0

@@ -20,8 +20,10 @@ METHODS = {
 }
 
 FIELDS = (
-    Field("frequency", "Vertical frequencies", "frequency", "2.1 Hz", "Hz", many=True, shared=True,
-          help="one or more vertical natural frequencies"),
+    Field("frequency", "Vertical frequency", "frequency", "2.1 Hz", "Hz", shared=True,
+          help="the first vertical natural frequency"),
+    Field("higher_frequencies", "Higher vertical frequencies", "frequency", "", "Hz", many=True, required=False,
+          help="further vertical (or torsional) natural frequencies, a list"),
     Field("lateral_frequency", "Lateral frequencies", "frequency", "1.05 Hz", "Hz", many=True, required=False,
           help="lateral (horizontal) or torsional natural frequencies"),
     Field("structure", "Structure", "choice", "footbridge", choices=footfall.STRUCTURES, required=False,
@@ -36,10 +38,7 @@ def compute(inputs: Inputs) -> Result:
     flags: list[Flag] = []
     series: dict[str, np.ndarray] = {}
     sources: set[str] = set()
-    for name, direction in (("frequency", "vertical"), ("lateral_frequency", "lateral")):
-        if not inputs.has(name):
-            continue
-        frequencies = inputs.array(name, positive=True)
+    for direction, frequencies in _frequencies(inputs):
         bands = footfall.bands_for(direction, structure)
         sources.update(b.source for b in bands)
         values.update(_direction_values(direction, frequencies, bands, structure, flags, sources))
@@ -49,6 +48,17 @@ def compute(inputs: Inputs) -> Result:
             series[key] = np.concatenate([series[key], column]) if key in series else column
     references = tuple(Reference(METHODS.get(source, "Comfort-check limit"), source) for source in sorted(sources))
     return inputs.result(values, series=series, flags=tuple(flags), references=references)
+
+
+def _frequencies(inputs: Inputs) -> list[tuple[str, np.ndarray]]:
+    """The vertical frequencies (first, then the higher ones) and the lateral ones given, in Hz."""
+    vertical = np.array([inputs.value("frequency", positive=True)])
+    if inputs.has("higher_frequencies"):
+        vertical = np.concatenate([vertical, inputs.array("higher_frequencies", positive=True)])
+    found = [("vertical", vertical)]
+    if inputs.has("lateral_frequency"):
+        found.append(("lateral", inputs.array("lateral_frequency", positive=True)))
+    return found
 
 
 def _direction_values(direction: str, frequencies: np.ndarray, bands: tuple[Band, ...], structure: str,
@@ -66,8 +76,8 @@ def _direction_values(direction: str, frequencies: np.ndarray, bands: tuple[Band
         flags.extend(_frequency_flags(direction, f, inside, margin, needed, rule))
     prefix = "" if direction == "vertical" else "lateral_"
     return {
-        f"{prefix}bands": word(f"{direction.capitalize()} bands hit", " | ".join(described)),
-        f"{prefix}margin": quantity(f"{direction.capitalize()} margin to forcing bands (- inside)", "frequency",
+        f"{prefix}bands": word(f"{direction.capitalize()} bands", " | ".join(described)),
+        f"{prefix}margin": quantity(f"{direction.capitalize()} margin (- inside)", "frequency",
                                     margins),
         f"{prefix}comfort_check": word(f"{direction.capitalize()} comfort check", ", ".join(verdicts)),
     }

@@ -38,7 +38,7 @@ REFERENCES = (
               "(scipy.linalg.eigh); participation and effective modal mass",
               "Chopra, Dynamics of Structures, ch. 10 and 13"),
     Reference("Rayleigh damping C = alpha M + beta K fixed at two modes", "Chopra, Dynamics of Structures, ch. 11"),
-    Reference("Modes for 90 % of the mass", "EN 1998-1:2004 4.3.3.3.1(3) (from memory)"),
+    Reference("Modes for 90 % mass", "EN 1998-1:2004 4.3.3.3.1(3) (from memory)"),
     Reference("Soft storey: stiffness below 70 % of the storey above or 80 % of the average of the three above",
               "ASCE 7-16 Table 12.3-2, type 1a (from memory)"),
 )
@@ -57,12 +57,12 @@ def compute(inputs: Inputs) -> Result:
         "period": quantity("Fundamental period", "time", periods[0]),
         "periods": quantity("Periods", "time", periods),
         "frequencies": quantity("Frequencies", "frequency", found.omega / (2 * np.pi)),
-        "mode_shapes": quantity("Mode shapes (row per mode, bottom to top)", "number", found.shapes),
-        "participation": quantity("Participation factors", "number", found.participation),
-        "effective_mass_ratio": quantity("Effective mass ratio", "ratio", ratios),
-        "cumulative_mass_ratio": quantity("Cumulative mass ratio", "ratio", np.cumsum(ratios)),
+        "mode_shapes": quantity("Mode shapes (per mode, roof = 1)", "number", found.shapes),
+        "participation": quantity("Participation", "number", found.participation),
+        "effective_mass_ratio": quantity("Effective mass", "ratio", ratios),
+        "cumulative_mass_ratio": quantity("Cumulative mass", "ratio", np.cumsum(ratios)),
         "total_mass": quantity("Total mass", "mass", total),
-        "modes_for_90_percent": quantity("Modes for 90 % of the mass", "count", float(needed)),
+        "modes_for_90_percent": quantity("Modes for 90 % mass", "count", float(needed)),
     }
     flags = [Flag("warning", f"soft storey {storey}: stiffness {reason}")
              for storey, reason in storeys.soft_storeys(stiffnesses)]
@@ -109,9 +109,9 @@ def _rayleigh(inputs: Inputs, omega: np.ndarray, zeta: float, flags: list[Flag])
             raise inputs.error("rayleigh_modes", f"there are only {len(omega)} modes")
     alpha, beta = storeys.rayleigh_coefficients(omega[chosen[0] - 1], omega[chosen[1] - 1], zeta)
     return {
-        "rayleigh_alpha": quantity(f"Rayleigh alpha (modes {chosen[0]}, {chosen[1]})", "angular_frequency", alpha),
-        "rayleigh_beta": quantity(f"Rayleigh beta (modes {chosen[0]}, {chosen[1]})", "time", beta),
-        "rayleigh_damping": quantity("Damping of each mode (Rayleigh)", "ratio",
+        "rayleigh_alpha": quantity(f"Rayleigh alpha ({chosen[0]}, {chosen[1]})", "angular_frequency", alpha),
+        "rayleigh_beta": quantity(f"Rayleigh beta ({chosen[0]}, {chosen[1]})", "time", beta),
+        "rayleigh_damping": quantity("Rayleigh damping", "ratio",
                                      storeys.rayleigh_damping_ratios(omega, alpha, beta)),
     }
 

@@ -40,7 +40,7 @@ def test_stiff_floor_is_clear() -> None:
 
 
 def test_several_frequencies_one_entry_each() -> None:
-    result = evaluate(frequency="2.1 Hz, 7.5 Hz, 12 Hz", structure="floor")
+    result = evaluate(frequency="2.1 Hz", higher_frequencies="7.5 Hz, 12 Hz", structure="floor")
     assert len(result.values["margin"].si()) == 3
     assert result.values["bands"].si().count("Hz:") == 3
     np.testing.assert_allclose(result.series["frequencies"], [2.1, 7.5, 12.0])
@@ -53,10 +53,11 @@ def test_rpm_and_angular_units() -> None:
 
 
 @pytest.mark.parametrize(("texts", "field", "words"), [
-    ({"frequency": ""}, "Vertical frequencies", "required"),
-    ({"frequency": "2.1 Hz,"}, "Vertical frequencies", "empty item"),
-    ({"frequency": "0 Hz"}, "Vertical frequencies", "greater than zero"),
-    ({"frequency": "2 Hz, -3 Hz"}, "Vertical frequencies", "greater than zero"),
+    ({"frequency": ""}, "Vertical frequency", "required"),
+    ({"frequency": "2.1 Hz, 4 Hz"}, "Vertical frequency", "comma"),
+    ({"frequency": "0 Hz"}, "Vertical frequency", "greater than zero"),
+    ({"higher_frequencies": "4.2 Hz,"}, "Higher vertical frequencies", "empty item"),
+    ({"higher_frequencies": "4 Hz, -3 Hz"}, "Higher vertical frequencies", "greater than zero"),
     ({"lateral_frequency": "1 t"}, "Lateral frequencies #1", "not a unit of frequency"),
     ({"structure": "tower"}, "Structure", "not one of the choices"),
 ])

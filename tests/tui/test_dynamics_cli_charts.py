@@ -31,7 +31,7 @@ def test_storeys_text_shows_values_per_storey(capsys: pytest.CaptureFixture[str]
     code, out, _ = run(capsys, "storeys", *DEMO["storeys"])
     assert code == 0
     assert re.search(r"Periods\s+[\d.]+, [\d.]+, [\d.]+ m?s", out)
-    assert re.search(r"Effective mass ratio\s+[\d.]+, [\d.]+, [\d.]+ %", out)
+    assert re.search(r"Effective mass\s+[\d.]+, [\d.]+, [\d.]+ %", out)
     shapes = [line for line in out.splitlines() if line.rstrip().endswith("1.000")]
     assert len(shapes) == 3  # one row per mode, each ending at the roof's 1.000
 

@@ -1,0 +1,71 @@
+"""Key-only helpers for pilot tests: move with Tab, type key by key, wait for results."""
+
+from __future__ import annotations
+
+import contextlib
+import io
+
+from rich.console import Console
+from textual.pilot import Pilot
+from textual.widgets import Input
+from textual.worker import WorkerCancelled
+
+from tui.field_app import FieldApp
+from tui.widgets.check_view import CheckView
+
+
+async def settle(app: FieldApp, pilot: Pilot) -> CheckView:
+    """Wait until the check on screen shows the outcome of its current texts; return its pane."""
+    for _ in range(200):
+        with contextlib.suppress(WorkerCancelled):  # a newer keystroke replaced that computation
+            await app.workers.wait_for_complete()
+        await pilot.pause()
+        if app.current_view.up_to_date:
+            return app.current_view
+        await pilot.pause(0.02)
+    raise AssertionError("the check never caught up with its inputs")
+
+
+async def focus_field(app: FieldApp, pilot: Pilot, name: str) -> Input:
+    """Move to a field with Tab alone; return its text box."""
+    view = app.current_view
+    target = view.row(name).input
+    for _ in range(len(view.spec.fields) + 2):
+        if app.focused is target:
+            return target
+        await pilot.press("tab")
+    raise AssertionError(f"Tab never reached {name}")
+
+
+async def type_into(app: FieldApp, pilot: Pilot, name: str, text: str) -> CheckView:
+    """Clear a field and type ``text`` key by key; wait for the results."""
+    await focus_field(app, pilot, name)
+    await pilot.press("home", "ctrl+k", *keys_for(text))
+    return await settle(app, pilot)
+
+
+def keys_for(text: str) -> list[str]:
+    names = {" ": "space", "/": "slash", ".": "full_stop", ",": "comma", "%": "percent_sign", "-": "minus",
+             "*": "asterisk", "^": "circumflex_accent", "'": "apostrophe", "_": "underscore", "#": "number_sign",
+             "(": "left_parenthesis", ")": "right_parenthesis", "+": "plus", "?": "question_mark"}
+    return [names.get(char, char) for char in text]
+
+
+def screen_text(app: FieldApp) -> str:
+    """What the terminal shows, as plain text."""
+    width, height = app.size
+    console = Console(width=width, height=height, file=io.StringIO(), force_terminal=True, color_system=None,
+                      record=True, legacy_windows=False)
+    console.print(app.screen._compositor.render_update(full=True, screen_stack=app._background_screens))
+    return console.export_text()
+
+
+def note_of(view: CheckView, name: str) -> str:
+    """The reading shown beside a field, then its error line, as plain text."""
+    row = view.row(name)
+    return " ".join(str(static.content) for static in row.query(".field-note, .field-error"))
+
+
+def flags_text(view: CheckView) -> str:
+    """The flags list of a pane as plain text."""
+    return str(view.query_one(".flags").content)

@@ -1,0 +1,71 @@
+"""The session file: atomic writes, restore, and what happens to a bad file."""
+
+from __future__ import annotations
+
+import json
+import os
+
+import pytest
+
+from tui.files import write_atomic
+from tui.session import SessionData, SessionStore, parse_session, state_dir
+
+
+def test_state_dir_follows_xdg_state_home(tmp_path):
+    assert state_dir({"XDG_STATE_HOME": str(tmp_path)}) == tmp_path / "fieldmode"
+    assert state_dir({}).parts[-3:] == (".local", "state", "fieldmode")
+    assert state_dir({"XDG_STATE_HOME": "relative/path"}).parts[-3:] == (".local", "state", "fieldmode")
+
+
+def test_save_then_load_round_trip(tmp_path):
+    store = SessionStore(tmp_path / "state")
+    data = SessionData({"sdof": {"mass": "9.6 t", "damping": ""}}, "us", "sdof", {"sdof": ["damping"]})
+    assert store.save(data) == ""
+    loaded = store.load()
+    assert loaded.messages == [] and loaded.data == data
+    raw = json.loads(store.path.read_text())
+    assert raw["format"] == "fieldmode-session" and raw["version"] == 1
+    assert [p.name for p in store.folder.iterdir()] == ["session.json"]  # no temporary file left
+
+
+def test_older_snapshot_never_replaces_a_newer_one(tmp_path):
+    store = SessionStore(tmp_path)
+    assert store.save(SessionData({"sdof": {"mass": "2 t"}}), sequence=2) == ""
+    store.save(SessionData({"sdof": {"mass": "1 t"}}), sequence=1)
+    assert store.load().data.texts["sdof"]["mass"] == "2 t"
+
+
+def test_atomic_write_leaves_the_old_file_when_it_fails(tmp_path, monkeypatch):
+    target = tmp_path / "session.json"
+    target.write_text("old")
+
+    def broken_replace(source, destination):
+        raise OSError(28, "No space left on device")
+
+    monkeypatch.setattr(os, "replace", broken_replace)
+    with pytest.raises(OSError):
+        write_atomic(target, "new")
+    assert target.read_text() == "old"
+    assert [p.name for p in tmp_path.iterdir()] == ["session.json"]
+
+
+@pytest.mark.parametrize("text", ["", "[]", "{", '{"format": "fieldmode-session", "checks": []}',
+                                  '{"format": "fieldmode-session", "checks": {"a": {"b": 1}}}',
+                                  '{"format": "fieldmode-session", "checks": {}, "own": {"a": "b"}}'])
+def test_parse_refuses_what_is_not_a_session(text):
+    with pytest.raises(ValueError):
+        parse_session(text)
+
+
+def test_unknown_system_falls_back_to_si():
+    data = parse_session('{"format": "fieldmode-session", "checks": {}, "system": "imperial", "current": 3}')
+    assert data.system == "si" and data.current == ""
+
+
+def test_unwritable_folder_is_reported_not_raised(tmp_path):
+    blocker = tmp_path / "file"
+    blocker.write_text("x")
+    store = SessionStore(blocker / "fieldmode")
+    assert "will not be saved" in store.probe()[0]
+    problem = store.save(SessionData({}))
+    assert problem.startswith("Session not saved: cannot write") and "Not a directory" in problem

@@ -1,0 +1,1 @@
+"""Widgets and dialogs of the terminal app, one per module."""

@@ -1,0 +1,39 @@
+"""Jump to any check by picking it from a list."""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+
+from rich.text import Text
+from textual.app import ComposeResult
+from textual.binding import Binding
+from textual.containers import Vertical
+from textual.screen import ModalScreen
+from textual.widgets import OptionList, Static
+from textual.widgets.option_list import Option
+
+from calc.spec import CheckSpec
+
+
+class CheckListScreen(ModalScreen[str | None]):
+    """Up/Down and Enter pick a check; Escape stays where you were."""
+
+    BINDINGS = [Binding("escape", "dismiss", "close", id="go.close")]
+
+    def __init__(self, specs: Sequence[CheckSpec], current: str) -> None:
+        super().__init__(classes="dialog-screen")
+        self.specs = specs
+        self.current = current
+
+    def compose(self) -> ComposeResult:
+        with Vertical(classes="dialog"):
+            yield Static(Text("Go to check (Enter picks, Escape closes)", style="bold"))
+            yield OptionList(*(Option(Text(f"{s.id:<16}{s.title}"), id=s.id) for s in self.specs))
+
+    def on_mount(self) -> None:
+        options = self.query_one(OptionList)
+        options.highlighted = next(i for i, s in enumerate(self.specs) if s.id == self.current)
+        options.focus()
+
+    def on_option_list_option_selected(self, event: OptionList.OptionSelected) -> None:
+        self.dismiss(event.option.id)

@@ -1,0 +1,45 @@
+"""A short table of typical values for the field in focus; picking a row fills the field."""
+
+from __future__ import annotations
+
+from rich.text import Text
+from textual.app import ComposeResult
+from textual.binding import Binding
+from textual.containers import Vertical
+from textual.screen import ModalScreen
+from textual.widgets import DataTable, Static
+
+from calc.lookups import Row, Table
+
+
+class LookupScreen(ModalScreen[Row | None]):
+    """Up/Down to choose, Enter fills the field, Escape leaves it as it was."""
+
+    BINDINGS = [Binding("escape", "dismiss", "close", id="table.close")]
+
+    def __init__(self, table: Table, field_label: str) -> None:
+        super().__init__(classes="dialog-screen")
+        self.table = table
+        self.field_label = field_label
+
+    def compose(self) -> ComposeResult:
+        with Vertical(classes="dialog"):
+            yield Static(Text(f"{self.table.title} -> {self.field_label}", style="bold"))
+            yield Static(Text(f"Enter fills the field, Escape closes. Fills {self.table.fills}."),
+                         classes="dialog-note")
+            grid: DataTable[str] = DataTable(cursor_type="row")
+            grid.add_columns("fills", "tabulated", "what")
+            for row in self.table.rows:
+                grid.add_row(row.fill, row.note, row.description)
+            yield grid
+            yield Static("", classes="dialog-note lookup-source")
+
+    def on_mount(self) -> None:
+        self.query_one(DataTable).focus()
+
+    def on_data_table_row_highlighted(self, event: DataTable.RowHighlighted) -> None:
+        row = self.table.rows[event.cursor_row]
+        self.query_one(".lookup-source", Static).update(Text(f"{row.description}: {row.note}; {row.source}"))
+
+    def on_data_table_row_selected(self, event: DataTable.RowSelected) -> None:
+        self.dismiss(self.table.rows[event.cursor_row])
