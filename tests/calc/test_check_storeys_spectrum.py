@@ -118,4 +118,4 @@ def test_national_annex_corner_period_is_used() -> None:
     result = evaluate(corner_period_tc="0.7 s")
     # Source: EN 1998-1:2004 3.2.2.2, eq. 3.3: with TC = 0.7 s a 0.628 s mode is on the plateau
     assert result.values["spectral_acceleration"].si()[0] == pytest.approx(0.2 * G0 * 1.15 * 2.5, rel=1e-12)
-    assert "user values for TC" in result.values["spectrum_used"].si()
+    assert "TC 0.7 s" in result.values["spectrum_used"].si()
