@@ -43,18 +43,18 @@ def modal_demand(inputs: Inputs, found: storeys.Modes, masses: np.ndarray, heigh
     rho = storeys.correlation_cqc(found.omega, zeta)
     values: dict[str, Value] = {
         "spectrum_used": word("Spectrum", described),
-        "spectral_acceleration": quantity("Spectral acceleration per mode", "acceleration", accelerations),
+        "spectral_acceleration": quantity("Sa per mode", "acceleration", accelerations),
     }
     for name, label, kind, modal, scale in (
-            ("displacement", "Floor displacement", "length", peaks.displacement, q),
-            ("drift", "Inter-storey drift", "length", peaks.drift, q),
-            ("shear", "Storey shear", "force", peaks.shear, 1.0)):
+            ("displacement", "displacement", "length", peaks.displacement, q),
+            ("drift", "drift", "length", peaks.drift, q),
+            ("shear", "storey shear", "force", peaks.shear, 1.0)):
         for method, combined in (("srss", storeys.combine_srss(modal)), ("cqc", storeys.combine_cqc(modal, rho))):
-            values[f"{name}_{method}"] = quantity(f"{label}, {method.upper()}", kind, scale * combined)
-    values["base_shear_srss"] = quantity("Base shear, SRSS", "force", values["shear_srss"].si()[0])
-    values["base_shear_cqc"] = quantity("Base shear, CQC", "force", values["shear_cqc"].si()[0])
+            values[f"{name}_{method}"] = quantity(f"{method.upper()} {label}", kind, scale * combined)
+    values["base_shear_srss"] = quantity("SRSS base shear", "force", values["shear_srss"].si()[0])
+    values["base_shear_cqc"] = quantity("CQC base shear", "force", values["shear_cqc"].si()[0])
     if heights is not None:
-        values["drift_ratio_cqc"] = quantity("Drift ratio, CQC", "ratio", np.array(values["drift_cqc"].si()) / heights)
+        values["drift_ratio_cqc"] = quantity("CQC drift ratio", "ratio", np.array(values["drift_cqc"].si()) / heights)
     flags.extend(_close_modes(found.periods))
     if q != 1.0:
         flags.append(Flag("info", f"displacements and drifts are q = {q:g} times the design-spectrum values"))
