@@ -6,8 +6,9 @@ from __future__ import annotations
 import numpy as np
 
 from calc import storeys
+from calc.checks import storeys_demand as demand
 from calc.checks.guard import overflow_guard
-from calc.result import Flag, Reference, Result, Value
+from calc.result import SEISMIC_CAUTION, Flag, Reference, Result, Value
 from calc.spec import CheckSpec, Field, Inputs, quantity
 
 MAX_SPREAD = 1e6
@@ -29,6 +30,7 @@ FIELDS = (
           help="of every mode, for Rayleigh damping and CQC (default 5 %)"),
     Field("rayleigh_modes", "Rayleigh modes", "count", "1, 2", "", many=True, required=False,
           help="the two modes given the damping ratio exactly"),
+    *demand.FIELDS,
 )
 
 REFERENCES = (
@@ -68,8 +70,12 @@ def compute(inputs: Inputs) -> Result:
     flags.extend(Flag("info", f"mode {n + 1} has no roof motion: its shape is scaled to its largest value")
                  for n in np.nonzero(found.roof_free)[0])
     values.update(_rayleigh(inputs, found.omega, zeta, flags))
-    series = _series(inputs, found)
-    return inputs.result(values, series=series, flags=tuple(flags), references=REFERENCES)
+    references: tuple[Reference, ...] = REFERENCES
+    if inputs.has("design_ground_acceleration"):
+        heights = inputs.array("heights") if inputs.has("heights") else None
+        values.update(demand.modal_demand(inputs, found, masses, heights, zeta, flags))
+        references += demand.REFERENCES
+    return inputs.result(values, series=_series(inputs, found), flags=tuple(flags), references=references)
 
 
 def _chain(inputs: Inputs) -> tuple[np.ndarray, np.ndarray]:
@@ -128,5 +134,6 @@ SPEC = CheckSpec(
     summary="periods, mode shapes, effective masses and modal seismic demand of a shear building",
     fields=FIELDS,
     compute=compute,
+    caution=SEISMIC_CAUTION,
     sends={"period": "period"},
 )
