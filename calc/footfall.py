@@ -31,7 +31,6 @@ FOOTBRIDGE_LATERAL_LIMIT = 2.5
 LOW_FREQUENCY_FLOOR = 10.0
 """Below this frequency (Hz) a floor can respond resonantly to walking harmonics."""
 
-STRUCTURES = ("footbridge", "floor")
 
 
 @dataclass(frozen=True)

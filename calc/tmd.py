@@ -14,7 +14,6 @@ from dataclasses import dataclass
 
 import numpy as np
 
-EXCITATIONS = ("force", "ground")
 ZOOMS = 3
 """Refinements of each peak, each 50 times finer (relative error of the peak about 1e-12)."""
 MIN_MASS_RATIO = 0.001

@@ -2,22 +2,21 @@
 
 from __future__ import annotations
 
+from typing import TYPE_CHECKING
+
 import numpy as np
 
-from calc import footfall
 from calc.checks.guard import overflow_guard
-from calc.footfall import Band
 from calc.result import Flag, Reference, Result, Value
 from calc.spec import CheckSpec, Field, Inputs, quantity, word
 
+if TYPE_CHECKING:
+    from calc.footfall import Band
+
+STRUCTURES = ("footbridge", "floor")
+
 NEAR = 0.10
 """A frequency within 10 % of a forcing band's edge is reported as near it."""
-
-METHODS = {
-    footfall.BACHMANN: "Pacing rates of walking, running and jumping; harmonic h covers h times the range",
-    footfall.SETRA: "Footbridge risk ranges of the natural frequency",
-    footfall.HIVOSS: "Footbridge critical frequency ranges",
-}
 
 FIELDS = (
     Field("frequency", "Vertical frequency", "frequency", "2.1 Hz", "Hz", shared=True,
@@ -26,13 +25,15 @@ FIELDS = (
           help="further vertical (or torsional) natural frequencies, a list"),
     Field("lateral_frequency", "Lateral frequencies", "frequency", "1.05 Hz", "Hz", many=True, required=False,
           help="lateral (horizontal) or torsional natural frequencies"),
-    Field("structure", "Structure", "choice", "footbridge", choices=footfall.STRUCTURES, required=False,
+    Field("structure", "Structure", "choice", "footbridge", choices=STRUCTURES, required=False,
           help="footbridge (default) adds the footbridge guides' risk ranges and the EN 1990 limits"),
 )
 
 
 @overflow_guard("frequency")
 def compute(inputs: Inputs) -> Result:
+    from calc import footfall
+
     structure = inputs.text("structure") if inputs.has("structure") else "footbridge"
     values: dict[str, Value] = {}
     flags: list[Flag] = []
@@ -46,7 +47,12 @@ def compute(inputs: Inputs) -> Result:
         rows = footfall.chart_rows(bands)
         for key, column in rows.items():
             series[key] = np.concatenate([series[key], column]) if key in series else column
-    references = tuple(Reference(METHODS.get(source, "Comfort-check limit"), source) for source in sorted(sources))
+    methods = {
+        footfall.BACHMANN: "Pacing rates of walking, running and jumping; harmonic h covers h times the range",
+        footfall.SETRA: "Footbridge risk ranges of the natural frequency",
+        footfall.HIVOSS: "Footbridge critical frequency ranges",
+    }
+    references = tuple(Reference(methods.get(source, "Comfort-check limit"), source) for source in sorted(sources))
     return inputs.result(values, series=series, flags=tuple(flags), references=references)
 
 
@@ -64,6 +70,8 @@ def _frequencies(inputs: Inputs) -> list[tuple[str, np.ndarray]]:
 def _direction_values(direction: str, frequencies: np.ndarray, bands: tuple[Band, ...], structure: str,
                       flags: list[Flag], sources: set[str]) -> dict[str, Value]:
     """Band membership, margins and the comfort-check verdict for one direction."""
+    from calc import footfall
+
     described, verdicts = [], []
     margins = np.array([footfall.forcing_margin(float(f), bands) for f in frequencies])
     for frequency, margin in zip(frequencies, margins, strict=True):

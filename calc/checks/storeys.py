@@ -3,13 +3,17 @@ modal response-spectrum combination (SRSS and CQC)."""
 
 from __future__ import annotations
 
+from typing import TYPE_CHECKING
+
 import numpy as np
 
-from calc import storeys
 from calc.checks import storeys_demand as demand
 from calc.checks.guard import overflow_guard
 from calc.result import SEISMIC_CAUTION, Flag, Reference, Result, Value
 from calc.spec import CheckSpec, Field, Inputs, quantity
+
+if TYPE_CHECKING:
+    from calc.storeys import Modes
 
 MAX_SPREAD = 1e6
 """Largest ratio between the largest and smallest storey mass, or stiffness, accepted (beyond it the
@@ -46,6 +50,8 @@ REFERENCES = (
 
 @overflow_guard("masses")
 def compute(inputs: Inputs) -> Result:
+    from calc import storeys
+
     masses, stiffnesses = _chain(inputs)
     zeta = inputs.optional("damping", DEFAULT_DAMPING, minimum=0.0, maximum=0.5) or 0.0
     found = storeys.modes(masses, stiffnesses)
@@ -97,6 +103,8 @@ def _chain(inputs: Inputs) -> tuple[np.ndarray, np.ndarray]:
 
 def _rayleigh(inputs: Inputs, omega: np.ndarray, zeta: float, flags: list[Flag]) -> dict[str, Value]:
     """Rayleigh coefficients for the two chosen modes, and the damping ratio they give every mode."""
+    from calc import storeys
+
     if len(omega) < 2:
         flags.append(Flag("info", "one storey: Rayleigh damping needs two modes"))
         return {}
@@ -116,7 +124,7 @@ def _rayleigh(inputs: Inputs, omega: np.ndarray, zeta: float, flags: list[Flag])
     }
 
 
-def _series(inputs: Inputs, found: storeys.Modes) -> dict[str, np.ndarray]:
+def _series(inputs: Inputs, found: Modes) -> dict[str, np.ndarray]:
     """Floor levels from the base up and the first mode shapes, each with 0 at the base."""
     count = found.shapes.shape[1]
     if inputs.has("heights"):

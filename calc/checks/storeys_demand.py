@@ -6,12 +6,16 @@ the ground fields, National Annex overrides and their reading shared with the `d
 
 from __future__ import annotations
 
+from typing import TYPE_CHECKING
+
 import numpy as np
 
-from calc import storeys
 from calc.checks import design_spectrum as code_spectrum
 from calc.result import Flag, Reference, Value
 from calc.spec import Field, Inputs, quantity, word
+
+if TYPE_CHECKING:
+    from calc.storeys import Modes
 
 CLOSE_PERIODS = 0.9
 """Modes whose periods are within 10 % of each other are not independent (SRSS unsafe)."""
@@ -35,9 +39,11 @@ REFERENCES = (
 )
 
 
-def modal_demand(inputs: Inputs, found: storeys.Modes, masses: np.ndarray, heights: np.ndarray | None,
+def modal_demand(inputs: Inputs, found: Modes, masses: np.ndarray, heights: np.ndarray | None,
                  zeta: float, flags: list[Flag]) -> dict[str, Value]:
     """Spectral accelerations per mode and the combined floor displacements, drifts and storey shears."""
+    from calc import storeys
+
     accelerations, described, q = spectral_accelerations(inputs, found.periods, zeta)
     peaks = storeys.modal_peaks(found, masses, accelerations)
     rho = storeys.correlation_cqc(found.omega, zeta)

@@ -3,13 +3,18 @@
 from __future__ import annotations
 
 import math
+from typing import TYPE_CHECKING
 
 import numpy as np
 
-from calc import tmd
 from calc.checks.guard import overflow_guard
 from calc.result import Flag, Reference, Result
 from calc.spec import CheckSpec, Field, Inputs, quantity
+
+if TYPE_CHECKING:
+    from calc.tmd import Optimum
+
+EXCITATIONS = ("force", "ground")
 
 MISTUNING = 0.05
 """Damper frequency error shown either side of the optimum (5 %)."""
@@ -27,7 +32,7 @@ FIELDS = (
           help="damper mass / modal mass, 0.1 % to 50 %"),
     Field("target_damping", "Target equivalent damping", "ratio", "", "", group="size",
           help="damping of a single mass with the same resonant peak; solves for the mass ratio"),
-    Field("excitation", "Excitation", "choice", "force", choices=tmd.EXCITATIONS, required=False,
+    Field("excitation", "Excitation", "choice", "force", choices=EXCITATIONS, required=False,
           help="force (default): harmonic force on the structure (Den Hartog); ground: harmonic ground acceleration "
                "(Warburton)"),
     Field("force", "Force amplitude", "force", "", "kN", required=False,
@@ -49,6 +54,8 @@ RESPONSE_REFERENCE = Reference("Peaks from the two-mass frequency response (comp
 
 @overflow_guard("modal_mass")
 def compute(inputs: Inputs) -> Result:
+    from calc import tmd
+
     frequency = inputs.value("frequency", positive=True)
     modal_mass = inputs.value("modal_mass", positive=True)
     zeta_p = inputs.value("damping", minimum=0.0, maximum=0.5)
@@ -100,6 +107,8 @@ def compute(inputs: Inputs) -> Result:
 
 
 def _solve_mass_ratio(inputs: Inputs, zeta_p: float, excitation: str) -> float:
+    from calc import tmd
+
     target = inputs.value("target_damping", positive=True, maximum=0.5)
     if target <= zeta_p:
         raise inputs.error("target_damping", "must be above the mode's own damping")
@@ -137,8 +146,10 @@ def _flags(mu: float, zeta_p: float, peak: float, low: float, high: float) -> li
     return flags
 
 
-def _series(mu: float, best: tmd.Optimum, zeta_p: float, excitation: str) -> dict[str, np.ndarray]:
+def _series(mu: float, best: Optimum, zeta_p: float, excitation: str) -> dict[str, np.ndarray]:
     """Response curves for the chart: with the damper, without, and mistuned either side."""
+    from calc import tmd
+
     spread = max(0.3, 3 * math.sqrt(mu))
     ratio = 1 + spread * np.linspace(-1.0, 1.0, CHART_POINTS)
     if 0 < zeta_p < math.sqrt(0.5):
