@@ -46,7 +46,7 @@ KINDS: dict[str, Kind] = {k.name: k for k in (
     _kind("frequency", "frequency", "1/[time]", "Hz", ("Hz",), ("Hz",), "'24.2 Hz' or '1450 rpm'"),
     _kind("angular_frequency", "angular frequency", "1/[time]", "rad/s", ("rad/s",), ("rad/s",),
           "'152 rad/s'"),
-    _kind("time", "time", "[time]", "s", ("s", "ms"), ("s", "ms"), "'0.5 s' or '200 ms'"),
+    _kind("time", "time", "[time]", "s", ("s",), ("s",), "'0.5 s' or '200 ms'"),
     _kind("mass", "mass", "[mass]", "kg", ("t", "kg"), ("lb",), "'12 t', '26500 lb' or a weight '117.7 kN'",
           weight_of=FORCE),
     _kind("force", "force", FORCE, "N", ("MN", "kN", "N"), ("kip", "lbf"), "'2.5 kN' or '560 lbf'"),

@@ -8,6 +8,7 @@ from __future__ import annotations
 
 import argparse
 import json
+import os
 import sys
 from collections.abc import Sequence
 from typing import NoReturn
@@ -92,12 +93,13 @@ def _convert(text: str, unit: str | None) -> int:
 def list_checks() -> str:
     """Every check with its inputs, for `fieldmode checks`."""
     lines = []
+    width = max(len(f.option) for spec in SPECS for f in spec.fields) + 2
     for spec in SPECS:
         lines.append(f"{spec.id:<16}{spec.title}: {spec.summary}")
         for spec_field in spec.fields:
             where = spec_field.name if spec_field.positional else spec_field.option
             demo = f"  e.g. {spec_field.default!r}" if spec_field.default else ""
-            lines.append(f"    {where:<26}{spec_field.shown_label}{demo}")
+            lines.append(f"    {where:<{width}}{spec_field.shown_label}{demo}")
     return "\n".join(lines)
 
 
@@ -134,6 +136,9 @@ def main(argv: Sequence[str] | None = None) -> int:
     except InputError as error:
         print(f"fieldmode: {error}", file=sys.stderr)
         return EXIT_INPUT
+    except BrokenPipeError:  # output piped into a pager or `head` that closed early
+        sys.stdout = open(os.devnull, "w")  # noqa: SIM115 (keeps the interpreter's final flush quiet)
+        return EXIT_OK
     except OSError as error:
         print(f"fieldmode: {error.strerror or error}: {error.filename or ''}".rstrip(": "), file=sys.stderr)
         return EXIT_INPUT
