@@ -125,7 +125,7 @@ def _column(layout: Layout, wanted: int | str, what: str) -> int:
     names = layout.names
     listing = ", ".join(names[:12]) + (" ..." if len(names) > 12 else "")
     text = str(wanted).strip()
-    if isinstance(wanted, int) or text.isdigit():
+    if isinstance(wanted, int) or text.isdecimal():
         number = int(text)
         if 1 <= number <= layout.width:
             return number - 1

@@ -12,6 +12,7 @@ import math
 import re
 import tokenize
 from dataclasses import dataclass
+from typing import Any
 
 import numpy as np
 import pint
@@ -220,7 +221,8 @@ def format_number(value: float, digits: int = 4) -> str:
 def display_unit(quantity: pint.Quantity, kind: str, system: str = "si") -> str:
     """Choose the display unit of ``kind`` in ``system`` ("si" or "us") for this value."""
     choices = KINDS[kind].display[system]
-    magnitude = abs(float(quantity.to(KINDS[kind].si).magnitude))
+    magnitudes = [abs(m) for m in _flat(quantity.to(KINDS[kind].si).magnitude)]
+    magnitude = max((m for m in magnitudes if math.isfinite(m)), default=0.0)
     for unit in choices:
         if magnitude >= Q_(1, unit).to(KINDS[kind].si).magnitude * 0.9999:
             return unit
@@ -228,12 +230,26 @@ def display_unit(quantity: pint.Quantity, kind: str, system: str = "si") -> str:
 
 
 def format_quantity(quantity: pint.Quantity, kind: str, system: str = "si", digits: int = 4) -> str:
-    """Format a quantity of ``kind`` in the engineering unit of ``system``, e.g. '24.17 Hz'."""
+    """Format a quantity of ``kind`` in the engineering unit of ``system``, e.g. '24.17 Hz'.
+
+    An array is shown as a comma list in one unit chosen by its largest value, e.g.
+    '0.51, 0.20, 0.14 s'; a two-dimensional array as rows separated by '; '.
+    """
     unit = display_unit(quantity, kind, system)
-    magnitude = float(quantity.to(unit).magnitude)
+    magnitude = quantity.to(unit).magnitude
     shown_unit = KINDS[kind].names.get(unit, unit)
-    text = format_number(magnitude, digits)
-    return f"{text} {shown_unit}".rstrip()
+    rows = magnitude if getattr(magnitude, "ndim", 0) == 2 else [magnitude]
+
+    def shown(v: float) -> str:
+        return f"{v:.0f}" if KINDS[kind].integer else format_number(v, digits)
+
+    texts = (", ".join(shown(v) for v in _flat(row)) for row in rows)
+    return "; ".join(f"{text} {shown_unit}".rstrip() for text in texts)
+
+
+def _flat(magnitude: Any) -> list[float]:
+    """The numbers of a scalar or array magnitude, in order."""
+    return [float(v) for v in np.ravel(magnitude)]
 
 
 def to_si(quantity: pint.Quantity, kind: str) -> float:

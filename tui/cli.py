@@ -122,9 +122,11 @@ def render_text(spec: CheckSpec, result: Result, system: str = "si") -> str:
         note = f"   [{record.note}]" if record.note else ""
         lines.append(f"  {spec.field(name).label:<30}{record.text}{note}")
     lines += ["", "Results"]
-    scalars = [value for value in result.values.values() if not _is_array(value)]
-    width = max((len(value.label) for value in scalars), default=0) + 2
-    lines += [f"  {value.label:<{width}}{value.shown(system)}" for value in scalars]
+    width = max((len(value.label) for value in result.values.values()), default=0) + 2
+    for value in result.values.values():
+        rows = value.shown(system).split("; ") if _is_array(value) else [value.shown(system)]
+        lines.append(f"  {value.label:<{width}}{rows[0]}")
+        lines += [f"  {'':<{width}}{row}" for row in rows[1:]]
     if result.flags:
         lines += ["", "Flags"] + [f"  {flag.shown()}" for flag in result.flags]
     lines += ["", "Method"] + [f"  {ref.method}: {ref.source}" for ref in result.references]

@@ -179,7 +179,6 @@ def shown_value(value: Value, system: str) -> str:
     if isinstance(magnitude, np.ndarray) and magnitude.ndim > 1:
         return "table " + " x ".join(str(n) for n in magnitude.shape)
     if isinstance(magnitude, np.ndarray) and magnitude.ndim == 1:
-        items = [format_quantity(value.quantity[i], value.kind, system) for i in range(min(magnitude.size, 6))]
         more = f" ... ({magnitude.size})" if magnitude.size > 6 else ""
-        return ", ".join(items) + more
+        return format_quantity(value.quantity[:6], value.kind, system) + more  # one unit for the list
     return value.shown(system)

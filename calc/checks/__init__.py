@@ -2,7 +2,20 @@
 
 from __future__ import annotations
 
-from calc.checks import decay, decrement, design_spectrum, forced, isolate, member, period, sdof, spectrum
+from calc.checks import (
+    decay,
+    decrement,
+    design_spectrum,
+    footfall,
+    forced,
+    isolate,
+    member,
+    period,
+    sdof,
+    spectrum,
+    storeys,
+    tmd,
+)
 from calc.spec import CheckSpec
 
 SPECS: tuple[CheckSpec, ...] = (
@@ -15,6 +28,9 @@ SPECS: tuple[CheckSpec, ...] = (
     period.SPEC,
     design_spectrum.SPEC,
     spectrum.SPEC,
+    storeys.SPEC,
+    tmd.SPEC,
+    footfall.SPEC,
 )
 """Every check, in display order. Add a new check's SPEC here."""
 

@@ -12,7 +12,7 @@ from collections.abc import Callable
 from typing import Any
 
 from calc.result import Result
-from tui.charts import decay, design_spectrum, forced, isolate, period, sdof, spectrum
+from tui.charts import decay, design_spectrum, footfall, forced, isolate, period, sdof, spectrum, storeys, tmd
 
 DrawFunction = Callable[[Any, Result, str], None]
 """draw(plt, result, system) where system is 'si' or 'us'."""
@@ -25,5 +25,8 @@ CHARTS: dict[str, tuple[DrawFunction, ...]] = {
     "period": (period.draw_period,),
     "design-spectrum": (design_spectrum.draw_spectrum,),
     "spectrum": (spectrum.draw_psa, spectrum.draw_history, spectrum.draw_record),
+    "storeys": (storeys.draw_mode_shapes,),
+    "tmd": (tmd.draw_response, tmd.draw_mistuning),
+    "footfall": (footfall.draw_vertical, footfall.draw_lateral),
 }
 """Check id -> its chart panels, in the order they are shown."""

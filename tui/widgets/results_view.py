@@ -11,6 +11,8 @@ from textual.widgets import Static
 LEVEL_WORDS = {"info": "note", "caution": "caution", "warning": "WARNING"}
 """Flag levels as words, shown beside their mark: meaning never rests on colour."""
 LEVEL_STYLES = {"info": "", "caution": "bold", "warning": "bold reverse"}
+LONG_VALUE = 24
+"""A value longer than this (characters) folds in three fifths of the width; labels keep two fifths."""
 
 
 class ResultsTable(Static):
@@ -45,11 +47,13 @@ class ResultsTable(Static):
 
     def show_rows(self, rows: list[tuple[str, str]]) -> None:
         """Show (label, value with its unit) rows (see :func:`tui.compute.as_shown`)."""
+        # a long value (a list per storey, a sentence) folds in a fixed share, so labels stay readable
+        folded = any(len(text) > LONG_VALUE for _, text in rows)
         table = Table(box=None, show_header=False, padding=(0, 1, 0, 0), expand=True)
-        table.add_column("what", ratio=1, overflow="ellipsis", no_wrap=True)
-        table.add_column("value", overflow="fold", justify="right")
-        for label, value in rows:
-            table.add_row(Text(label), Text(value))
+        table.add_column("what", ratio=2 if folded else 1, overflow="ellipsis", no_wrap=True)
+        table.add_column("value", ratio=3 if folded else None, overflow="fold", justify="right")
+        for label, text in rows:
+            table.add_row(Text(label), Text(text))
         self.update(table)
 
     def show_problem(self, problem: str) -> None:

@@ -1,0 +1,47 @@
+"""Median time from changed text to new results and chart panels for storeys, tmd and footfall (in process)."""
+
+from __future__ import annotations
+
+import statistics
+import time
+
+import plotext
+from common import BenchRow
+
+from calc.checks import BY_ID
+from tui.charts import CHARTS
+
+KEYSTROKE_BUDGET = 0.030
+"""DESIGN.md section 7: one keystroke to updated results and chart, median (s)."""
+
+EDITS = {
+    "storeys": ("masses", ["310 t, 300 t, 24 t", "310 t, 300 t, 240 t", "310 t, 300 t, 245 t"]),
+    "tmd": ("target_damping", ["5 %", "4 %", "6 %"]),
+    "footfall": ("frequency", ["2.1 Hz", "2.15 Hz", "2.2 Hz"]),
+}
+
+
+def _update(check: str, texts: dict[str, str]) -> None:
+    result = BY_ID[check].evaluate(texts)
+    for draw in CHARTS[check]:
+        plotext.clf()
+        plotext.plotsize(70, 18)
+        draw(plotext, result, "si")
+        plotext.build()
+
+
+def rows() -> list[BenchRow]:
+    found = []
+    for check, (name, texts) in EDITS.items():
+        base = BY_ID[check].demo_texts()
+        if check == "tmd":
+            base["mass_ratio"] = ""
+        times = []
+        for repeat in range(10):
+            base[name] = texts[repeat % len(texts)]
+            start = time.perf_counter()
+            _update(check, base)
+            times.append(time.perf_counter() - start)
+        found.append(BenchRow(f"{check}: typed text to results and charts (median)", statistics.median(times[1:]),
+                              None, KEYSTROKE_BUDGET))
+    return found

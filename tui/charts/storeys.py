@@ -1,0 +1,29 @@
+"""Chart of the `storeys` check: the first mode shapes against height."""
+
+from __future__ import annotations
+
+from typing import Any
+
+from calc.result import Result
+from calc.units import Q_
+
+MARKERS = ("o", "x", "+")
+"""One marker per mode, so the modes stay apart without colour."""
+
+
+def draw_mode_shapes(plt: Any, result: Result, system: str) -> None:
+    """Mode shapes 1-3 (roof = 1) against floor level, the base at 0."""
+    if "height" in result.series:
+        unit = "ft" if system == "us" else "m"
+        level = Q_(result.series["height"], "m").to(unit).magnitude
+        plt.ylabel(f"height {unit}")
+    else:
+        level = result.series["storey"]
+        plt.ylabel("floor")
+    plt.vline(0.0)
+    for n, marker in enumerate(MARKERS, start=1):
+        shape = result.series.get(f"mode_{n}")
+        if shape is not None:
+            plt.plot(list(shape), list(level), marker=marker)
+    plt.title("Mode shapes: 1 o, 2 x, 3 +")
+    plt.xlabel("shape (roof = 1)")
