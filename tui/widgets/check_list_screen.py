@@ -8,20 +8,20 @@ from rich.text import Text
 from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical
-from textual.screen import ModalScreen
 from textual.widgets import OptionList, Static
 from textual.widgets.option_list import Option
 
 from calc.spec import CheckSpec
+from tui.widgets.dialog import Dialog
 
 
-class CheckListScreen(ModalScreen[str | None]):
+class CheckListScreen(Dialog[str | None]):
     """Up/Down and Enter pick a check; Escape stays where you were."""
 
     BINDINGS = [Binding("escape", "dismiss", "close", id="go.close")]
 
     def __init__(self, specs: Sequence[CheckSpec], current: str) -> None:
-        super().__init__(classes="dialog-screen")
+        super().__init__()
         self.specs = specs
         self.current = current
 

@@ -6,11 +6,12 @@ from rich.text import Text
 from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Horizontal, Vertical
-from textual.screen import ModalScreen
 from textual.widgets import Button, Static
 
+from tui.widgets.dialog import Dialog
 
-class ConfirmScreen(ModalScreen[bool]):
+
+class ConfirmScreen(Dialog[bool]):
     """A yes/no question; the safe answer (no) has the focus."""
 
     BINDINGS = [
@@ -19,7 +20,7 @@ class ConfirmScreen(ModalScreen[bool]):
     ]
 
     def __init__(self, question: str) -> None:
-        super().__init__(classes="dialog-screen")
+        super().__init__()
         self.question = question
 
     def compose(self) -> ComposeResult:

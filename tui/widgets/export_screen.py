@@ -10,17 +10,17 @@ from rich.text import Text
 from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical
-from textual.screen import ModalScreen
 from textual.widgets import Input, RadioButton, RadioSet, Static
 
 from tui.record import record_paths
 from tui.widgets.confirm_screen import ConfirmScreen
+from tui.widgets.dialog import Dialog
 
 Writer = Callable[[Path, str], str]
 """write(path, scope) -> '' when written, else a one-line problem; scope is 'check' or 'session'."""
 
 
-class ExportScreen(ModalScreen[str | None]):
+class ExportScreen(Dialog[str | None]):
     """Path box and scope choice; Enter writes (asking before replacing), Escape cancels.
 
     Dismisses with a line saying what was written, or None when cancelled. A failed
@@ -30,7 +30,7 @@ class ExportScreen(ModalScreen[str | None]):
     BINDINGS = [Binding("escape", "dismiss", "cancel", id="record.cancel")]
 
     def __init__(self, names: dict[str, str], write: Writer) -> None:
-        super().__init__(classes="dialog-screen")
+        super().__init__()
         self.names = names
         """Scope -> default file name."""
         self.write = write

@@ -14,6 +14,7 @@ from textual.suggester import SuggestFromList
 from textual.widgets import Input, Static
 
 from calc.fields import Field
+from tui.widgets.dialog import hand_to_dialog
 from tui.widgets.path_suggester import PathSuggester
 
 MAX_INPUT = 4096
@@ -27,7 +28,7 @@ class FieldInput(Input):
     to the app, so when keystrokes arrive together (over SSH they often do) typed
     characters overtook a Home, Backspace, Tab or F-key typed before them. Here every
     bound key runs as it arrives, and characters that arrive after a key moved the
-    focus elsewhere follow the focus.
+    focus elsewhere follow the focus, into a dialog that key opened too.
     """
 
     def __init__(self, value: str, edited: Callable[[str], None], **options: Any) -> None:
@@ -41,6 +42,8 @@ class FieldInput(Input):
             self._edited(value)
 
     async def _on_key(self, event: events.Key) -> None:
+        if hand_to_dialog(self, event):  # typed after the key that opened a dialog
+            return
         focused = self.app.focused
         if focused is not None and focused is not self:
             event.stop()

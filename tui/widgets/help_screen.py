@@ -9,8 +9,9 @@ from rich.text import Text
 from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical, VerticalScroll
-from textual.screen import ModalScreen
 from textual.widgets import Static
+
+from tui.widgets.dialog import Dialog
 
 EXTRA_KEYS: tuple[tuple[str, str], ...] = (
     ("Tab / Shift+Tab", "next / previous field"),
@@ -27,13 +28,13 @@ def key_rows(bindings: Sequence[Binding]) -> list[tuple[str, str, str]]:
     return rows + [(keys, what, "") for keys, what in EXTRA_KEYS]
 
 
-class HelpScreen(ModalScreen[None]):
+class HelpScreen(Dialog[None]):
     """Lists every key; Escape or F1 closes it."""
 
     BINDINGS = [Binding("escape,f1", "dismiss", "close", id="help.close")]
 
     def __init__(self, rows: list[tuple[str, str, str]]) -> None:
-        super().__init__(classes="dialog-screen")
+        super().__init__()
         self._rows = rows
         """(keys, what, binding id) as listed."""
 

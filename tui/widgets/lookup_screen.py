@@ -6,19 +6,19 @@ from rich.text import Text
 from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical
-from textual.screen import ModalScreen
 from textual.widgets import DataTable, Static
 
 from calc.lookups import Row, Table
+from tui.widgets.dialog import Dialog
 
 
-class LookupScreen(ModalScreen[Row | None]):
+class LookupScreen(Dialog[Row | None]):
     """Up/Down to choose, Enter fills the field, Escape leaves it as it was."""
 
     BINDINGS = [Binding("escape", "dismiss", "close", id="table.close")]
 
     def __init__(self, table: Table, field_label: str) -> None:
-        super().__init__(classes="dialog-screen")
+        super().__init__()
         self.table = table
         self.field_label = field_label
 
