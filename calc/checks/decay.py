@@ -66,7 +66,7 @@ def compute(inputs: Inputs) -> Result:
     kind = _SIGNAL_KIND.get(record.quantity, "number")
     values = _values(found, kind)
     values["sample_rate"] = quantity("Sample rate", "frequency", record.sample_rate)
-    values["samples"] = quantity("Samples", "number", float(len(record.signal)))
+    values["samples"] = quantity("Samples", "count", float(len(record.signal)))
     notes = tuple(Flag("info", f"{record.channel_name}: {note}") for note in record.notes)
     return inputs.result(values, series=found.series, flags=notes + found.flags, references=REFERENCES)
 
@@ -86,7 +86,7 @@ def _values(found: Decay, kind: str) -> dict[str, Value]:
         "damping_ratio_high": quantity("Damping ratio, 95 % high", "ratio", found.damping_ratio_high),
         "log_decrement": quantity("Log decrement (per cycle)", "number", found.log_decrement),
         "cycles": quantity("Cycles fitted", "number", found.cycles),
-        "peaks": quantity("Peaks fitted", "number", float(found.fit.count)),
+        "peaks": quantity("Peaks fitted", "count", float(found.fit.count)),
         "fit_r_squared": quantity("Fit R^2 (ln amplitude)", "number", found.fit.r_squared),
         "damped_frequency": quantity("Damped frequency", "frequency", found.damped_frequency),
         "spectral_frequency": quantity("Spectral peak frequency", "frequency", found.spectral_frequency),

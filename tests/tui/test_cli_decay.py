@@ -32,6 +32,15 @@ def test_decay_with_a_positional_file_prints_results(capsys: pytest.CaptureFixtu
     assert "licensed" in out
 
 
+def test_decay_counts_are_whole_numbers(capsys: pytest.CaptureFixture[str]) -> None:
+    """Peaks and samples are counts: shown without decimals."""
+    code, out, _ = run(capsys, "decay", str(demo_path()))
+    assert code == 0
+    for label in ("Peaks fitted", "Samples"):
+        line = next(line for line in out.splitlines() if label in line)
+        assert line.split()[-1].isdigit(), line
+
+
 def test_decay_json_has_the_contract_names(capsys: pytest.CaptureFixture[str]) -> None:
     code, out, _ = run(capsys, "decay", str(demo_path()), "--band", "5 9", "--signal-unit", "m/s^2", "--json")
     assert code == 0
