@@ -34,7 +34,7 @@ def draw_record(plt: Any, result: Result, system: str) -> None:
     peaks = series["peak_amplitude"]
     step = max(1, len(peaks) // 60)
     plt.scatter(series["peak_time"][::step], peaks[::step] * factor, marker="x")
-    plt.title(f"Record{f' ({unit})' if unit else ''}: fitted envelope (.), peaks (x)")
+    plt.title(f"Record{f' ({unit})' if unit else ''}: envelope ., peaks x")
     plt.xlabel("time (s)")
 
 
@@ -56,5 +56,5 @@ def draw_spectrum(plt: Any, result: Result, system: str) -> None:
         f = float(peak.quantity.to("Hz").magnitude)
         plt.scatter([f], [float(np.interp(f, frequency, amplitude))], marker="o")
     band = f" {edges[0]:.2f}-{edges[1]:.2f} Hz" if len(edges) == 2 else ""
-    plt.title(f"Spectrum: peak (o), half-power band (|){band}")
+    plt.title(f"peak o, half-power |{band}")  # short: plotext drops a title wider than the chart at 80x24
     plt.xlabel("frequency (Hz)")
