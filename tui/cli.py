@@ -7,6 +7,7 @@ unexpected fault (a bug, reported with the version).
 from __future__ import annotations
 
 import argparse
+import gc
 import json
 import os
 import sys
@@ -32,9 +33,13 @@ class _Parser(argparse.ArgumentParser):
         self.exit(EXIT_INPUT, f"{self.prog}: {message} (see {self.prog} --help)\n")
 
 
-def build_parser() -> argparse.ArgumentParser:
-    """The whole command line: `checks`, `convert`, and one subcommand per check spec."""
-    from calc.checks import SPECS
+def build_parser(only: str | None = None) -> argparse.ArgumentParser:
+    """The command line: `checks`, `convert`, and one subcommand per check spec.
+
+    With ``only`` (a check id) just that check's subcommand is built, so running one
+    check imports only its own module.
+    """
+    from calc.checks import CHECK_IDS, load
     from calc.result import CAUTION
 
     parser = _Parser(prog="fieldmode", description="Structural-dynamics checks for site work. " + CAUTION)
@@ -44,8 +49,8 @@ def build_parser() -> argparse.ArgumentParser:
     conversion = commands.add_parser("convert", help="unit-safe conversion, e.g. convert '1450 rpm' Hz")
     conversion.add_argument("text", help="a value with its unit, quoted")
     conversion.add_argument("unit", nargs="?", help="target unit (default: SI)")
-    for spec in SPECS:
-        _add_check(commands, spec)
+    for check_id in (only,) if only else CHECK_IDS:
+        _add_check(commands, load(check_id))
     return parser
 
 
@@ -73,15 +78,15 @@ def run(argv: Sequence[str]) -> int:
         from tui.app import launch  # the app's imports are kept off the command line's start-up
 
         return launch()
-    from calc.checks import BY_ID
+    from calc.checks import CHECK_IDS, load
 
-    args = build_parser().parse_args(argv)
+    args = build_parser(argv[0] if argv[0] in CHECK_IDS else None).parse_args(argv)
     if args.command == "checks":
         print(list_checks())
         return EXIT_OK
     if args.command == "convert":
         return _convert(args.text, args.unit)
-    spec = BY_ID[args.command]
+    spec = load(args.command)
     texts = {f.name: getattr(args, f.name) for f in spec.fields if getattr(args, f.name) is not None}
     result = spec.evaluate(texts)
     if args.json:
@@ -141,6 +146,10 @@ def _is_array(value: object) -> bool:
 
 def main(argv: Sequence[str] | None = None) -> int:
     """Console entry point: run and turn failures into the exit-status contract."""
+    if argv is None:
+        # A command runs for a fraction of a second and builds few cycles: collecting
+        # garbage during the core's imports costs more than it frees.
+        gc.disable()
     try:
         return run(sys.argv[1:] if argv is None else argv)
     except SystemExit as done:  # argparse: --help, --version, or a usage error already reported
