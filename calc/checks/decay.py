@@ -5,6 +5,7 @@ from __future__ import annotations
 from typing import TYPE_CHECKING
 
 from calc.checks.guard import overflow_guard
+from calc.checks.record_columns import RECORD_COLUMN_FIELDS
 from calc.demo_records import demo_path
 from calc.result import Flag, Reference, Result, Value
 from calc.spec import CheckSpec, Field, Inputs, quantity
@@ -15,12 +16,7 @@ if TYPE_CHECKING:
 FIELDS = (
     Field("file", "Record file", "path", str(demo_path()), positional=True,
           help="CSV or text: a time column and a signal column, or a signal and --sample-rate"),
-    Field("time_column", "Time column", "text", "", required=False,
-          help="header name or number; default the first column (or one named time)"),
-    Field("signal_column", "Signal column", "text", "", required=False,
-          help="header name or number; default the first column after the time"),
-    Field("sample_rate", "Sample rate", "frequency", "", "Hz", required=False,
-          help="for a file without a time column"),
+    *RECORD_COLUMN_FIELDS,
     Field("signal_unit", "Signal unit", "text", "", required=False,
           help="g, m/s^2, mm/s or mm; default from the header, else as in the file"),
     Field("band", "Band-pass", "frequency", "", "Hz", many=True, required=False,

@@ -9,6 +9,7 @@ import numpy as np
 from calc import groundmotion, seismic
 from calc.checks.design_spectrum import GROUND_FIELDS, design_ground_acceleration, read_shape, shape_flag
 from calc.checks.guard import overflow_guard
+from calc.checks.record_columns import RECORD_COLUMN_FIELDS
 from calc.groundmotion import demo_path
 from calc.result import SEISMIC_CAUTION, Flag, Reference, Result
 from calc.spec import CheckSpec, Field, Inputs, Value, quantity
@@ -35,12 +36,7 @@ FIELDS = (
           help="CSV or text: a time column and a ground acceleration column, or the signal and --sample-rate"),
     Field("signal_unit", "Signal unit", "choice", "g", choices=SIGNAL_UNITS, required=False,
           help="unit of the acceleration column; default from its header"),
-    Field("time_column", "Time column", "text", "", required=False,
-          help="header name or number; default the first column (or one named time)"),
-    Field("signal_column", "Signal column", "text", "", required=False,
-          help="header name or number; default the first column after the time"),
-    Field("sample_rate", "Sample rate", "frequency", "", "Hz", required=False,
-          help="for a file without a time column"),
+    *RECORD_COLUMN_FIELDS,
     Field("damping", "Damping ratio", "ratio", "5 %", "", required=False, help="default 5 %"),
     Field("period", "Period to mark", "time", "0.53 s", "s", required=False, shared=True,
           help="results and time history at this period"),
