@@ -14,10 +14,11 @@ from __future__ import annotations
 import math
 import sys
 from dataclasses import dataclass
-from importlib.resources import files
 from pathlib import Path
 
 import numpy as np
+
+from calc.shipped import shipped_file
 
 DEMO_FILE = "heel_drop_demo.csv"
 
@@ -43,7 +44,7 @@ class HeelDrop:
 
 def demo_path() -> Path:
     """Absolute path of the shipped demo record."""
-    return Path(str(files("calc").joinpath("data", DEMO_FILE)))
+    return shipped_file(DEMO_FILE)
 
 
 def _mode_acceleration(t: np.ndarray, force: np.ndarray, dt: float, frequency: float, damping: float) -> np.ndarray:

@@ -12,10 +12,11 @@ from __future__ import annotations
 import math
 import sys
 from dataclasses import dataclass
-from importlib.resources import files
 from pathlib import Path
 
 import numpy as np
+
+from calc.shipped import shipped_file
 
 SEED = 4117
 """Seed of the demo noise (invented)."""
@@ -95,7 +96,7 @@ def ground_peaks(acc: np.ndarray, dt: float) -> tuple[float, float, float]:
 
 def demo_path() -> str:
     """Path of the shipped demo accelerogram."""
-    return str(files("calc") / "data" / DEMO_FILE)
+    return str(shipped_file(DEMO_FILE))
 
 
 def demo_text(parameters: MotionParameters = MotionParameters()) -> str:

@@ -1,11 +1,11 @@
-"""Pieces shared by the earthquake charts: acceleration display unit, log-period ticks, optional values."""
+"""Pieces shared by the earthquake charts: acceleration display unit, log-period ticks, the marked period."""
 
 from __future__ import annotations
 
-import math
 from typing import Any
 
 from calc.units import STANDARD_GRAVITY
+from tui.charts.common import OPERATING_MARKER
 
 LOG_TICKS = (0.01, 0.02, 0.05, 0.1, 0.2, 0.5, 1.0, 2.0, 5.0, 10.0, 20.0)
 
@@ -24,10 +24,9 @@ def log_period_axis(plt: Any, shortest: float, longest: float) -> None:
     plt.xlabel("T (s)")
 
 
-def value(result: Any, name: str) -> float | None:
-    """SI magnitude of a scalar result, or None when absent."""
-    item = result.values.get(name)
-    if item is None or isinstance(item.quantity, str):
-        return None
-    magnitude = float(item.si())
-    return magnitude if math.isfinite(magnitude) else None
+def mark_period(plt: Any, period: float | None, ordinate: float | None) -> None:
+    """Mark the chosen period (s) with a vertical line and X at ``ordinate`` (already in display units)."""
+    if period is None or ordinate is None:
+        return
+    plt.vline(period)
+    plt.scatter([period], [ordinate], marker=OPERATING_MARKER)

@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+import math
+
 import numpy as np
 
 from calc.result import Result
@@ -33,3 +35,12 @@ def downsample(x: np.ndarray, y: np.ndarray, points: int = POINTS) -> tuple[list
 def value(result: Result, name: str) -> float:
     """SI magnitude of a scalar result value."""
     return float(result.values[name].si())
+
+
+def optional_value(result: Result, name: str) -> float | None:
+    """SI magnitude of a scalar result, or None when it is absent, a word, or not finite."""
+    item = result.values.get(name)
+    if item is None or isinstance(item.quantity, str):
+        return None
+    magnitude = float(item.si())
+    return magnitude if math.isfinite(magnitude) else None

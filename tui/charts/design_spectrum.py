@@ -5,8 +5,8 @@ from __future__ import annotations
 from typing import Any
 
 from calc.result import Result
-from tui.charts._seismic import acceleration_scale, value
-from tui.charts.common import LINE_MARKER, OPERATING_MARKER, downsample
+from tui.charts._seismic import acceleration_scale, mark_period
+from tui.charts.common import LINE_MARKER, downsample, optional_value
 
 
 def draw_spectrum(plt: Any, result: Result, system: str) -> None:
@@ -18,10 +18,8 @@ def draw_spectrum(plt: Any, result: Result, system: str) -> None:
     if "design_spectral_acceleration" in result.series:
         x, y = downsample(period, result.series["design_spectral_acceleration"] / scale)
         plt.plot(x, y, marker="dot", label="Sd")
-    marked = value(result, "spectral_acceleration")
+    marked = optional_value(result, "spectral_acceleration")
     at = result.inputs["period"].value if "period" in result.inputs else None
-    if marked is not None and at is not None:
-        plt.vline(at)
-        plt.scatter([at], [marked / scale], marker=OPERATING_MARKER)
+    mark_period(plt, at, None if marked is None else marked / scale)
     plt.title(f"EN 1998-1 spectrum ({unit})")
     plt.xlabel("T (s)")

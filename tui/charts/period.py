@@ -5,8 +5,7 @@ from __future__ import annotations
 from typing import Any
 
 from calc.result import Result
-from tui.charts._seismic import value
-from tui.charts.common import LINE_MARKER, OPERATING_MARKER
+from tui.charts.common import LINE_MARKER, OPERATING_MARKER, optional_value
 
 
 def draw_period(plt: Any, result: Result, system: str) -> None:
@@ -17,7 +16,7 @@ def draw_period(plt: Any, result: Result, system: str) -> None:
     plt.plot(height, result.series["period_en"].tolist(), marker=LINE_MARKER, label="EN")
     plt.plot(height, result.series["period_asce"].tolist(), marker="dot", label="ASCE")
     h = result.inputs["height"].value if "height" in result.inputs else None
-    en, asce = value(result, "period"), value(result, "period_asce")
+    en, asce = optional_value(result, "period"), optional_value(result, "period_asce")
     if h is not None and en is not None and asce is not None:
         plt.vline(h * factor)
         plt.scatter([h * factor, h * factor], [en, asce], marker=OPERATING_MARKER)

@@ -6,8 +6,8 @@ from __future__ import annotations
 from typing import Any
 
 from calc.result import Result
-from tui.charts._seismic import acceleration_scale, log_period_axis, value
-from tui.charts.common import LINE_MARKER, OPERATING_MARKER, downsample
+from tui.charts._seismic import acceleration_scale, log_period_axis, mark_period
+from tui.charts.common import LINE_MARKER, downsample, optional_value
 
 
 def draw_psa(plt: Any, result: Result, system: str) -> None:
@@ -19,11 +19,10 @@ def draw_psa(plt: Any, result: Result, system: str) -> None:
     if "design_psa" in result.series:
         x, y = downsample(period, result.series["design_psa"] / scale)
         plt.plot(x, y, marker="dot", label="EN 1998-1")
-    psa = value(result, "psa")
+    psa = optional_value(result, "psa")
     at = result.inputs["period"].value if "period" in result.inputs else None
-    if psa is not None and at is not None and period[0] <= at <= period[-1]:
-        plt.vline(at)
-        plt.scatter([at], [psa / scale], marker=OPERATING_MARKER)
+    if at is not None and period[0] <= at <= period[-1]:
+        mark_period(plt, at, None if psa is None else psa / scale)
     log_period_axis(plt, float(period[0]), float(period[-1]))
     plt.title(f"psa ({unit})")
 
@@ -37,7 +36,7 @@ def draw_history(plt: Any, result: Result, system: str) -> None:
         return
     x, y = downsample(time, result.series["response_displacement"] * factor)
     plt.plot(x, y, marker=LINE_MARKER)
-    peak = value(result, "sd")
+    peak = optional_value(result, "sd")
     if peak is not None:
         plt.hline(peak * factor)
         plt.hline(-peak * factor)
