@@ -2,8 +2,10 @@
 VENV := .venv
 PY := $(VENV)/bin/python
 STAMP := $(VENV)/.installed
+# mypy resolves the installed names (fieldmode.calc, fieldmode.tui) through this tree of links.
+TYPECHECK := build/typecheck
 
-.PHONY: run test lint bench clean
+.PHONY: run test lint bench docs clean
 
 $(STAMP): pyproject.toml
 	python3 -m venv $(VENV)
@@ -19,10 +21,16 @@ test: $(STAMP)
 
 lint: $(STAMP)
 	$(VENV)/bin/ruff check calc tui tests
-	$(VENV)/bin/mypy calc
+	mkdir -p $(TYPECHECK)/fieldmode
+	ln -sfn ../../../calc $(TYPECHECK)/fieldmode/calc
+	ln -sfn ../../../tui $(TYPECHECK)/fieldmode/tui
+	MYPYPATH=$(TYPECHECK) $(VENV)/bin/mypy -p fieldmode.calc -p fieldmode.tui
 
 bench: $(STAMP)
 	$(PY) tests/bench/run.py
+
+docs: $(STAMP)
+	$(PY) -m fieldmode.tui.screenshots docs
 
 clean:
 	rm -rf $(VENV) build *.egg-info

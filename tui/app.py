@@ -1,71 +1,350 @@
-"""Start the terminal app (`fieldmode` with no arguments).
+"""The terminal app: one pane per check spec, keyboard only, autosaved, with calc records.
 
-Textual reads its settings from the environment when it is first imported, so the
-defaults for work over SSH are set here before the app module (tui.field_app) loads.
-
-Start-up time is budgeted (DESIGN.md section 7). The results of the first screen are
-computed by a helper process while this one loads Textual (tui/prestart.py). Until the
-first results are on screen the program only builds objects that live as long as it does
-(modules, the widgets), so the cyclic garbage collector, which would walk them again and
-again, is paused until then; they are then frozen out of its way (gc.freeze), which also
-keeps later collections, and the exit, short.
+Nothing here is specific to a check: every pane is generated from the check specs. The first
+frame shows the fields of the check on screen; its results are computed in a worker right
+after, which is when the core (pint, the unit reader) is loaded.
 """
 
 from __future__ import annotations
 
-import gc
+import asyncio
 import os
-from collections.abc import Callable
+import signal
+from collections.abc import Callable, Sequence
 from pathlib import Path
 from typing import TYPE_CHECKING
 
+from textual import work
+from textual.app import App, ComposeResult
+from textual.binding import Binding
+from textual.widgets import ContentSwitcher
+
+from fieldmode.calc.checks import SPECS
+from fieldmode.tui.session import SessionStore, state_dir
+from fieldmode.tui.widgets.check_view import CheckView
+from fieldmode.tui.widgets.status import CautionLine, KeyBar, TopBar
+from fieldmode.tui.workspace import Workspace
+
 if TYPE_CHECKING:
-    from tui.field_app import FieldApp
+    from fieldmode.calc.framework.spec import CheckSpec
+    from fieldmode.calc.typical_values import Row
 
-QUIET_DEFAULTS = {"TEXTUAL_ANIMATIONS": "none", "TEXTUAL_FPS": "30"}
-"""No animation and at most 30 redraws a second, unless the person set otherwise."""
-LEAN_DEFAULTS = {"OPENBLAS_NUM_THREADS": "1"}
-"""One BLAS thread: the app's arrays are small, and starting a thread pool when numpy loads
-costs start-up time (about a tenth of numpy's import here). A value set by the person is kept."""
+# Dialogs, typical-value tables and the calc record writer are imported when first used: the
+# first frame waits for nothing it does not show.
+
+MAIN_ONLY = {"scroll_results", "own", "previous_check", "next_check", "go", "units", "view", "lookup", "send", "record"}
+"""Actions that act on the check on screen, so not while a dialog is open."""
 
 
-def launch(state_folder: Path | None = None, on_first_frame: Callable[[FieldApp], None] | None = None,
-           headless: bool = False, size: tuple[int, int] | None = None) -> int:
-    """Open the app; return the exit status.
+class FieldmodeApp(App[int]):
+    """Every check of the session, one at a time, with fields, results, flags and charts."""
 
-    ``on_first_frame`` is called once the first results are on screen (the start-up
-    benchmark quits there); ``headless`` and ``size`` are passed to ``App.run``.
-    """
-    for name, value in {**QUIET_DEFAULTS, **LEAN_DEFAULTS}.items():
-        os.environ.setdefault(name, value)
-    collecting = gc.isenabled()
-    gc.disable()
+    CSS_PATH = Path(__file__).with_name("app.tcss")
+    TITLE = "fieldmode"
+    ENABLE_COMMAND_PALETTE = False
+    BINDINGS = [
+        Binding("f1", "keys", "keys", id="keys", tooltip="list every key"),
+        Binding("f2", "previous_check", "check", key_display="F2/F3", id="check.previous",
+                tooltip="previous check"),
+        Binding("f3", "next_check", "next check", show=False, id="check.next", tooltip="next check"),
+        Binding("f4", "go", "go", id="check.go", tooltip="go to a check picked from the list"),
+        Binding("f5", "units", "units", id="units", tooltip="show results in SI or US customary units"),
+        Binding("f6", "view", "view", id="view", tooltip="show the results, then each chart panel in turn"),
+        Binding("f7", "lookup", "table", id="lookup",
+                tooltip="typical values for the field in focus, with sources; Enter fills the field"),
+        Binding("f8", "send", "send", id="send",
+                tooltip="send this check's results (such as a stiffness) into the same fields of other checks"),
+        Binding("f9", "record", "record", id="record",
+                tooltip="write a calc record (Markdown and JSON) of this check or of the whole session"),
+        Binding("ctrl+o", "own", "own value", show=False, id="field.own",
+                tooltip="a shared field (mass, damping) in focus: keep its own value in this check, or share it again"),
+        Binding("pagedown", "scroll_results(1)", "results down", show=False, id="results.down",
+                tooltip="scroll the results (the fields, in chart view) down a page"),
+        Binding("pageup", "scroll_results(-1)", "results up", show=False, id="results.up",
+                tooltip="scroll the results (the fields, in chart view) up a page"),
+        Binding("f10,ctrl+q", "quit_saved", "quit", key_display="F10", id="quit", priority=True,
+                tooltip="save the session and quit"),
+    ]
 
-    def first_frame(app: FieldApp) -> None:
-        if collecting:
-            gc.freeze()
-            gc.enable()
-        if on_first_frame is not None:
-            on_first_frame(app)
+    def __init__(self, state_folder: Path | None = None, ascii_borders: bool | None = None,
+                 on_first_frame: Callable[[FieldmodeApp], None] | None = None,
+                 on_first_results: Callable[[FieldmodeApp], None] | None = None,
+                 specs: Sequence[CheckSpec] | None = None) -> None:
+        """``on_first_frame`` is called once the fields are drawn, ``on_first_results`` once the
+        first results are on screen (the start-up benchmark times both)."""
+        super().__init__()
+        self._on_first_frame = on_first_frame
+        self._on_first_results = on_first_results
+        self._first_results_shown = False
+        self.specs = tuple(specs if specs is not None else SPECS)
+        self.store = SessionStore(state_folder if state_folder is not None else state_dir())
+        loaded = self.store.load()
+        self.startup_messages = loaded.messages + self.store.probe()
+        self.workspace = Workspace(self.specs, loaded.data)
+        self.views: dict[str, CheckView] = {}
+        self.messages: list[str] = []
+        """Every notice shown to the person, in order (tests read it)."""
+        self.ascii_borders = (os.environ.get("TERM") == "linux" or os.environ.get("FIELDMODE_ASCII") == "1"
+                              if ascii_borders is None else ascii_borders)
+        self._save_sequence = 0
+        self._save_problem = ""
 
-    try:
-        from tui import prestart
-        from tui.session import SessionStore, state_dir
+    def compose(self) -> ComposeResult:
+        yield TopBar("", id="top")
+        current = self._new_view(self.workspace.current)
+        yield ContentSwitcher(current, initial=current.id, id="checks")
+        yield CautionLine("", id="caution")
+        yield KeyBar("", id="keys")
 
-        folder = state_folder if state_folder is not None else state_dir()
-        loaded = SessionStore(folder).load()
-        helper = prestart.start(loaded.data)  # loads the core and computes the first results meanwhile
-        from tui.field_app import FieldApp
+    def _new_view(self, check_id: str) -> CheckView:
+        view = CheckView(self.workspace.by_id[check_id], self.workspace)
+        self.views[check_id] = view
+        return view
 
-        specs = helper.outlines() if helper is not None else None
-        first = helper.first if helper is not None and specs is not None else None
-        app = FieldApp(specs, folder, on_first_frame=first_frame, loaded=loaded, first=first)
+    def on_mount(self) -> None:
+        self.set_class(self.ascii_borders, "-ascii")
+        self.query_one(KeyBar).show_keys([b for b in self.BINDINGS if isinstance(b, Binding)])
+        self.current_view.focus_first()
+        self._show_state()
+        for message in self.startup_messages:
+            self.say(message, warning=True, timeout=20)
+        loop = asyncio.get_running_loop()
+        for signum in (signal.SIGHUP, signal.SIGTERM):
+            loop.add_signal_handler(signum, self._on_signal)
+        if self._on_first_frame is not None:
+            self.call_after_refresh(self._on_first_frame, self)
+
+    def on_unmount(self) -> None:
+        loop = asyncio.get_running_loop()
+        for signum in (signal.SIGHUP, signal.SIGTERM):
+            loop.remove_signal_handler(signum)
+
+    def _on_signal(self) -> None:
+        """The link dropped or the process is asked to stop: save now, then leave cleanly."""
+        self.store.save(self.workspace.snapshot())
+        self.exit(0)
+
+    @property
+    def current_view(self) -> CheckView:
+        return self.views[self.workspace.current]
+
+    def say(self, text: str, warning: bool = False, timeout: float = 6) -> None:
+        """Tell the person something (a notice in the corner) and keep it in :attr:`messages`."""
+        self.messages.append(text)
+        self.notify(text, title="warning" if warning else "done", severity="warning" if warning else "information",
+                    timeout=timeout, markup=False)
+
+    def check_action(self, action: str, parameters: tuple[object, ...]) -> bool | None:
+        return not (action in MAIN_ONLY and len(self.screen_stack) > 1)
+
+    def _show_state(self) -> None:
+        view = self.current_view
+        index = next(i for i, spec in enumerate(self.specs) if spec.id == view.spec.id)
+        shown = "results" if not view.view else f"chart {view.view}"
+        self.query_one(TopBar).show_state(index, len(self.specs), view.spec.id, view.spec.title,
+                                          self.workspace.system, shown, bool(self._save_problem))
+        self.query_one(CautionLine).show_caution(view.spec.caution)
+
+    # Changes and saving
+
+    def on_check_view_edited(self, event: CheckView.Edited) -> None:
+        for check_id, _ in event.shared:
+            if check_id in self.views:
+                self.views[check_id].stale = True
+        self.save_soon()
+
+    def on_check_view_computed(self, event: CheckView.Computed) -> None:
+        if event.check_id == self.workspace.current:
+            self._show_state()
+            if not self._first_results_shown:
+                self._first_results_shown = True
+                if self._on_first_results is not None:
+                    self.call_after_refresh(self._on_first_results, self)
+
+    def save_soon(self) -> None:
+        """Save the session in the background (after every change)."""
+        self._save_sequence += 1
+        self._save(self.workspace.snapshot(), self._save_sequence)
+
+    @work(thread=True, group="save")
+    def _save(self, snapshot: object, sequence: int) -> None:
+        problem = self.store.save(snapshot, sequence)  # type: ignore[arg-type]
+        self.call_from_thread(self._saved, problem)
+
+    def _saved(self, problem: str) -> None:
+        if problem and problem != self._save_problem:
+            self.say(problem + ". Export a calc record (F9) to keep your inputs.", warning=True, timeout=15)
+        changed = bool(problem) != bool(self._save_problem)
+        self._save_problem = problem
+        if changed:
+            self._show_state()
+
+    # Moving between checks
+
+    async def show_check(self, check_id: str) -> None:
+        """Put a check on screen (building its pane the first time) and focus its first field."""
+        switcher = self.query_one(ContentSwitcher)
+        view = self.views.get(check_id)
+        if view is None:
+            view = self._new_view(check_id)
+            await switcher.mount(view)
+        elif view.stale:
+            view.sync()
+        switcher.current = view.id
+        self.workspace.current = check_id
+        view.focus_first()
+        self._show_state()
+        self.save_soon()
+
+    async def _step(self, offset: int) -> None:
+        ids = [spec.id for spec in self.specs]
+        await self.show_check(ids[(ids.index(self.workspace.current) + offset) % len(ids)])
+
+    async def action_previous_check(self) -> None:
+        await self._step(-1)
+
+    async def action_next_check(self) -> None:
+        await self._step(1)
+
+    def action_go(self) -> None:
+        from fieldmode.tui.widgets.check_list_screen import CheckListScreen
+
+        async def picked(check_id: str | None) -> None:
+            if check_id:
+                await self.show_check(check_id)
+
+        self.push_screen(CheckListScreen(self.specs, self.workspace.current), picked)
+
+    # Units, view, keys
+
+    def action_units(self) -> None:
+        self.workspace.system = "us" if self.workspace.system == "si" else "si"
+        for view in self.views.values():
+            view.stale = True
+        self.current_view.request_compute()
+        self._show_state()
+        self.save_soon()
+
+    async def action_view(self) -> None:
+        await self.current_view.cycle_view()
+        self._show_state()
+
+    def action_scroll_results(self, pages: int) -> None:
+        self.current_view.scroll_results(pages)
+
+    def action_keys(self) -> None:
+        from fieldmode.tui.widgets.help_screen import HelpScreen, key_rows
+
+        if not isinstance(self.screen, HelpScreen):
+            self.push_screen(HelpScreen(key_rows([b for b in self.BINDINGS if isinstance(b, Binding)])))
+
+    def action_quit_saved(self) -> None:
+        self.store.save(self.workspace.snapshot())
+        self.exit(0)
+
+    # Lookups, sending, records
+
+    def action_lookup(self) -> None:
+        from fieldmode.calc.typical_values import choices_table, table_for
+        from fieldmode.tui.widgets.lookup_screen import LookupScreen
+
+        view = self.current_view
+        row = view.focused_row()
+        if row is None:
+            self.say("Move to a field first (Tab), then F7.")
+            return
+        spec_field = row.field
+        table = table_for(spec_field.name, spec_field.kind)
+        if table is None and spec_field.choices:
+            table = choices_table(spec_field.label, spec_field.choices)
+        if table is None:
+            self.say(f"No table of typical values for {spec_field.label}.")
+            return
+
+        def fill(picked: Row | None) -> None:
+            row.input.focus()
+            if picked is not None:
+                view.type_text(spec_field.name, picked.fill)
+                self.say(f"{spec_field.label} = {picked.fill}: {picked.description} ({picked.source})")
+
+        self.push_screen(LookupScreen(table, spec_field.label), fill)
+
+    def action_own(self) -> None:
+        view = self.current_view
+        row = view.focused_row()
+        if row is None or not row.field.shared:
+            self.say("Ctrl+O works in a shared field (such as mass or damping).")
+            return
+        own = self.workspace.toggle_own(view.spec.id, row.field.name)
+        self.say(f"{row.field.label}: " + ("own value in this check" if own
+                                           else "shared again with the checks showing the same text"))
+        view.request_compute()
+        self.save_soon()
+
+    def action_send(self) -> None:
+        from fieldmode.tui.evaluation import evaluate_guarded
+
+        view = self.current_view
+        spec = view.spec
+        if not spec.sends:
+            self.say(f"{spec.id} has no results to send to other checks.")
+            return
+        texts = self.workspace.texts[spec.id]
+        outcome = view.outcome
+        if (outcome is None or outcome.result is None or outcome.texts != texts
+                or outcome.system != self.workspace.system):
+            outcome = evaluate_guarded(spec, texts, self.workspace.system)
+        if outcome.result is None:
+            self.say("Nothing sent: fix the inputs marked ! first.", warning=True)
+            return
+        sent = self.workspace.send(spec.id, outcome.result)
+        if not sent:
+            self.say("No other check has a field for these results.")
+            return
+        for item in sent:
+            if item.check in self.views:
+                self.views[item.check].stale = True
+        lines: dict[str, list[str]] = {}
+        for item in sent:
+            lines.setdefault(f"{item.field} = {item.text}", []).append(item.check)
+        self.say("Sent " + "; ".join(f"{what} to {', '.join(checks)}" for what, checks in lines.items()))
+        self.save_soon()
+
+    def action_record(self) -> None:
+        from fieldmode.tui.calc_record import default_name
+        from fieldmode.tui.widgets.export_screen import ExportScreen
+
+        names = {"check": default_name(self.workspace.current), "session": default_name("session")}
+        self.push_screen(ExportScreen(names, self.write_record), self._recorded)
+
+    def _recorded(self, message: str | None) -> None:
+        if message:
+            self.say(message)
+
+    def write_record(self, path: Path, scope: str) -> str:
+        """Write the calc record of the current check or the session; '' or the problem."""
+        from fieldmode.tui.calc_record import Entry, write_record
+        from fieldmode.tui.evaluation import evaluate_guarded
+        from fieldmode.tui.files import describe_os_error
+
+        specs = self.specs if scope == "session" else (self.workspace.by_id[self.workspace.current],)
+        system = self.workspace.system
+        entries = [Entry(spec, dict(self.workspace.texts[spec.id]),
+                         evaluate_guarded(spec, self.workspace.texts[spec.id], system)) for spec in specs]
         try:
-            result = app.run(headless=headless, size=size)
-        finally:
-            if helper is not None:
-                helper.close()
-    finally:
-        if collecting:
-            gc.enable()
-    return result if isinstance(result, int) else 0
+            write_record(path, entries, system)
+        except OSError as error:
+            return describe_os_error(error, path) + "; nothing was lost, try another path"
+        return ""
+
+
+def run_app(state_folder: Path | None = None, **options: object) -> int:
+    """Open the app on the saved session (or the demo); return the exit status.
+
+    ``options`` are those of :class:`FieldmodeApp`, plus ``headless`` and ``size`` for ``App.run``.
+    """
+    headless = bool(options.pop("headless", False))
+    size = options.pop("size", None)
+    app = FieldmodeApp(state_folder, **options)  # type: ignore[arg-type]
+    status = app.run(headless=headless, size=size)  # type: ignore[arg-type]
+    return status if isinstance(status, int) else 0

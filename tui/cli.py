@@ -14,14 +14,14 @@ import sys
 from collections.abc import Sequence
 from typing import TYPE_CHECKING, NoReturn
 
-from calc import __version__
+from fieldmode.calc import __version__
 
 if TYPE_CHECKING:
-    from calc.result import Result
-    from calc.spec import CheckSpec
+    from fieldmode.calc.framework.result import Result
+    from fieldmode.calc.framework.spec import CheckSpec
 
 # The core (numpy, pint, the checks) is imported where it is used: `fieldmode` with no
-# arguments opens the app, whose start-up (tui.app.launch) imports it on its own terms.
+# arguments opens the app, which draws its first frame before it loads the unit reader.
 
 EXIT_OK, EXIT_FAULT, EXIT_INPUT = 0, 1, 2
 
@@ -39,8 +39,8 @@ def build_parser(only: str | None = None) -> argparse.ArgumentParser:
     With ``only`` (a check id) just that check's subcommand is built, so running one
     check imports only its own module.
     """
-    from calc.checks import CHECK_IDS, load
-    from calc.result import CAUTION
+    from fieldmode.calc.checks import CHECK_IDS, load
+    from fieldmode.calc.framework.result import CAUTION
 
     parser = _Parser(prog="fieldmode", description="Structural-dynamics checks for site work. " + CAUTION)
     parser.add_argument("--version", action="version", version=f"fieldmode {__version__}")
@@ -57,7 +57,7 @@ def build_parser(only: str | None = None) -> argparse.ArgumentParser:
 def _add_check(commands: argparse._SubParsersAction, spec: CheckSpec) -> None:  # type: ignore[type-arg]
     sub = commands.add_parser(spec.id, help=spec.summary, description=f"{spec.title}: {spec.summary}. {spec.caution}")
     for spec_field in spec.fields:
-        text = spec_field.shown_label
+        text = spec_field.label_with_unit
         if spec_field.choices:
             text += ": " + " | ".join(spec_field.choices)
         if spec_field.help:
@@ -75,10 +75,10 @@ def _add_check(commands: argparse._SubParsersAction, spec: CheckSpec) -> None:  
 def run(argv: Sequence[str]) -> int:
     """Run the command line on ``argv``; return the exit status."""
     if not argv:
-        from tui.app import launch  # the app's imports are kept off the command line's start-up
+        from fieldmode.tui.app import run_app  # the app's imports are kept off the command line's start-up
 
-        return launch()
-    from calc.checks import CHECK_IDS, load
+        return run_app()
+    from fieldmode.calc.checks import CHECK_IDS, load
 
     args = build_parser(argv[0] if argv[0] in CHECK_IDS else None).parse_args(argv)
     if args.command == "checks":
@@ -97,17 +97,17 @@ def run(argv: Sequence[str]) -> int:
 
 
 def _convert(text: str, unit: str | None) -> int:
-    from calc.units import convert, format_number
+    from fieldmode.calc.framework.units import convert, format_number
 
     quantity, note = convert(text, unit)
-    shown_unit = "" if str(quantity.units) == "dimensionless" else f" {quantity.units:~P}"
-    print(f"{text} = {format_number(float(quantity.magnitude))}{shown_unit}" + (f"  ({note})" if note else ""))
+    unit = "" if str(quantity.units) == "dimensionless" else f" {quantity.units:~P}"
+    print(f"{text} = {format_number(float(quantity.magnitude))}{unit}" + (f"  ({note})" if note else ""))
     return EXIT_OK
 
 
 def list_checks() -> str:
     """Every check with its inputs, for `fieldmode checks`."""
-    from calc.checks import SPECS
+    from fieldmode.calc.checks import SPECS
 
     lines = []
     width = max(len(f.option) for spec in SPECS for f in spec.fields) + 2
@@ -116,32 +116,29 @@ def list_checks() -> str:
         for spec_field in spec.fields:
             where = spec_field.name if spec_field.positional else spec_field.option
             demo = f"  e.g. {spec_field.default!r}" if spec_field.default else ""
-            lines.append(f"    {where:<{width}}{spec_field.shown_label}{demo}")
+            lines.append(f"    {where:<{width}}{spec_field.label_with_unit}{demo}")
     return "\n".join(lines)
 
 
 def render_text(spec: CheckSpec, result: Result, system: str = "si") -> str:
     """A check's result as plain text for the terminal."""
+    from fieldmode.tui.present import flag_text, value_lines
+
     lines = [f"{spec.title} ({spec.id})", "", "Inputs"]
-    for name, record in result.inputs.items():
-        note = f"   [{record.note}]" if record.note else ""
-        lines.append(f"  {spec.field(name).label:<30}{record.text}{note}")
+    for name, typed in result.inputs.items():
+        note = f"   [{typed.note}]" if typed.note else ""
+        lines.append(f"  {spec.field(name).label:<30}{typed.text}{note}")
     lines += ["", "Results"]
     width = max((len(value.label) for value in result.values.values()), default=0) + 2
     for value in result.values.values():
-        rows = value.shown(system).split("; ") if _is_array(value) else [value.shown(system)]
+        rows = value_lines(value, system)
         lines.append(f"  {value.label:<{width}}{rows[0]}")
         lines += [f"  {'':<{width}}{row}" for row in rows[1:]]
     if result.flags:
-        lines += ["", "Flags"] + [f"  {flag.shown()}" for flag in result.flags]
+        lines += ["", "Flags"] + [f"  {flag_text(flag)}" for flag in result.flags]
     lines += ["", "Method"] + [f"  {ref.method}: {ref.source}" for ref in result.references]
     lines += ["", f"Caution: {result.caution}"]
     return "\n".join(lines)
-
-
-def _is_array(value: object) -> bool:
-    magnitude = getattr(getattr(value, "quantity", None), "magnitude", None)
-    return magnitude is not None and getattr(magnitude, "ndim", 0) > 0
 
 
 def main(argv: Sequence[str] | None = None) -> int:
@@ -165,7 +162,7 @@ def main(argv: Sequence[str] | None = None) -> int:
 
 def _failed(error: Exception) -> int:
     """Report a failure on one line of stderr; return its exit status."""
-    from calc.units import InputError
+    from fieldmode.calc.framework.units import InputError
 
     if isinstance(error, InputError):
         print(f"fieldmode: {error}", file=sys.stderr)

@@ -17,7 +17,7 @@ from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
 
-from tui.files import describe_os_error, write_atomic
+from fieldmode.tui.files import describe_os_error, write_atomic
 
 FORMAT = "fieldmode-session"
 VERSION = 1
@@ -67,8 +67,8 @@ def parse_session(text: str) -> SessionData:
             isinstance(fields, dict) and all(isinstance(k, str) and isinstance(v, str) for k, v in fields.items())
             for fields in checks.values()):
         raise SessionFormatError("the checks in the session file are not texts")
-    system = data.get("system") if data.get("system") in ("si", "us") else "si"
-    current = data.get("current") if isinstance(data.get("current"), str) else ""
+    system = str(data["system"]) if data.get("system") in ("si", "us") else "si"
+    current = data["current"] if isinstance(data.get("current"), str) else ""
     own = data.get("own", {})
     if not isinstance(own, dict) or not all(isinstance(v, list) and all(isinstance(n, str) for n in v)
                                             for v in own.values()):

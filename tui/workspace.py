@@ -13,13 +13,11 @@ from collections.abc import Iterable, Sequence
 from dataclasses import dataclass
 from typing import TYPE_CHECKING
 
-from calc.fields import CheckOutline
-from calc.kinds import KINDS
-from tui.session import SessionData
+from fieldmode.tui.session import SessionData
 
 if TYPE_CHECKING:
-    from calc.result import Result
-    from calc.spec import CheckSpec
+    from fieldmode.calc.framework.result import Result
+    from fieldmode.calc.framework.spec import CheckSpec
 
 
 @dataclass(frozen=True)
@@ -34,7 +32,7 @@ class Sent:
 class Workspace:
     """Texts of every check of a session, with the sharing and sending rules."""
 
-    def __init__(self, specs: Sequence[CheckSpec | CheckOutline], data: SessionData | None = None) -> None:
+    def __init__(self, specs: Sequence[CheckSpec], data: SessionData | None = None) -> None:
         self.specs = tuple(specs)
         self.by_id = {spec.id: spec for spec in self.specs}
         self.texts: dict[str, dict[str, str]] = {spec.id: spec.demo_texts() for spec in self.specs}
@@ -106,13 +104,16 @@ class Workspace:
         A target field that is one of a group of alternatives replaces them: the other
         fields of its group are emptied in that check.
         """
+        from fieldmode.tui.present import field_text  # loaded with the result sent
+
         spec = self.by_id[check_id]
         sent: list[Sent] = []
         for value_name, field_name in spec.sends.items():
             value = result.values.get(value_name)
-            if value is None or isinstance(value.quantity, str):
+            number = value.number() if value is not None else None
+            if value is None or number is None:
                 continue
-            text = value_text(value.quantity, value.kind, self.system)
+            text = field_text(number, value.kind, self.system)
             for other in self.specs:
                 target = next((f for f in other.fields if f.name == field_name), None)
                 if other.id == check_id or target is None:
@@ -124,13 +125,3 @@ class Workspace:
                             self.texts[other.id][sibling.name] = ""
                 sent.append(Sent(other.id, field_name, text))
         return sent
-
-
-def value_text(quantity: object, kind: str, system: str) -> str:
-    """A quantity as text to type into a field: 6 significant figures in an engineering unit."""
-    from calc.units import display_unit
-
-    unit = display_unit(quantity, kind, system)  # type: ignore[arg-type]
-    magnitude = float(quantity.to(unit).magnitude)  # type: ignore[attr-defined]
-    shown = KINDS[kind].names.get(unit, unit)
-    return f"{magnitude:.6g} {shown}".strip()

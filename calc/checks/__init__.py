@@ -1,8 +1,9 @@
 """The registry of checks: one spec per check, in the order they are listed and shown.
 
-Each check lives in ``calc/checks/<id with underscores>.py`` and defines ``SPEC``.
-``SPECS`` and ``BY_ID`` import every check on first use; :func:`load` imports one,
-which keeps a single command-line check quick to start.
+Each check lives in ``calc/checks/<module>.py`` (its id with underscores, :func:`module_name`)
+and defines ``SPEC``; its chart panels live in ``tui/charts/<module>.py`` under the same name.
+``SPECS`` and ``BY_ID`` import every check on first use; :func:`load` imports one, which keeps
+a single command-line check quick to start.
 """
 
 from __future__ import annotations
@@ -11,7 +12,7 @@ import importlib
 from typing import TYPE_CHECKING
 
 if TYPE_CHECKING:
-    from calc.spec import CheckSpec
+    from fieldmode.calc.framework.spec import CheckSpec
 
     SPECS: tuple[CheckSpec, ...]
     BY_ID: dict[str, CheckSpec]
@@ -23,11 +24,16 @@ CHECK_IDS: tuple[str, ...] = (
 """Every check id, in display order. Add a new check's id here."""
 
 
-def load(check_id: str) -> CheckSpec:
-    """The spec of one check, importing only its module."""
+def module_name(check_id: str) -> str:
+    """The module name of a check (and of its chart panels): its id with underscores."""
     if check_id not in CHECK_IDS:
         raise KeyError(check_id)
-    spec: CheckSpec = importlib.import_module(f"calc.checks.{check_id.replace('-', '_')}").SPEC
+    return check_id.replace("-", "_")
+
+
+def load(check_id: str) -> CheckSpec:
+    """The spec of one check, importing only its module."""
+    spec: CheckSpec = importlib.import_module(f"fieldmode.calc.checks.{module_name(check_id)}").SPEC
     return spec
 
 

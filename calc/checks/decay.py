@@ -4,17 +4,18 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING
 
-from calc.checks.guard import overflow_guard
-from calc.checks.record_columns import RECORD_COLUMN_FIELDS
-from calc.demo_records import demo_path
-from calc.result import Flag, Reference, Result, Value
-from calc.spec import CheckSpec, Field, Inputs, quantity
+from fieldmode.calc.demo import HEEL_DROP, demo_file
+from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.result import Flag, Reference, Result, Value, quantity
+from fieldmode.calc.framework.spec import SIGNAL, CheckSpec, Field, Series
+from fieldmode.calc.records.columns import RECORD_COLUMN_FIELDS
 
 if TYPE_CHECKING:
-    from calc.decay import Decay
+    from fieldmode.calc.framework.reading import Inputs
+    from fieldmode.calc.records.decay import Decay
 
 FIELDS = (
-    Field("file", "Record file", "path", str(demo_path()), positional=True,
+    Field("file", "Record file", "path", str(demo_file(HEEL_DROP)), positional=True,
           help="CSV or text: a time column and a signal column, or a signal and --sample-rate"),
     *RECORD_COLUMN_FIELDS,
     Field("signal_unit", "Signal unit", "text", "", required=False,
@@ -39,8 +40,8 @@ _SIGNAL_KIND = {"acceleration": "acceleration", "velocity": "velocity", "length"
 @overflow_guard("file")
 def compute(inputs: Inputs) -> Result:
     # The analysis modules are imported here, not at the top: every other command starts faster.
-    from calc.decay import DecayError, analyse
-    from calc.records import MAX_SAMPLE_RATE, MIN_SAMPLE_RATE, RecordError, read_record
+    from fieldmode.calc.records.decay import DecayError, analyse
+    from fieldmode.calc.records.read import MAX_SAMPLE_RATE, MIN_SAMPLE_RATE, RecordError, read_record
 
     path = inputs.text("file")
     rate = inputs.optional("sample_rate", None, minimum=MIN_SAMPLE_RATE, maximum=MAX_SAMPLE_RATE)
@@ -59,12 +60,13 @@ def compute(inputs: Inputs) -> Result:
         others = [name for name in record.columns if name != record.channel_name]
         hint = f"; other columns: {', '.join(others[:6])} (--signal-column)" if len(others) > 1 else ""
         raise RecordError(path, f"signal column {record.channel_name!r}: {error}{hint}") from error
-    kind = _SIGNAL_KIND.get(record.quantity, "number")
+    kind = _SIGNAL_KIND.get(record.kind, "number")
     values = _values(found, kind)
     values["sample_rate"] = quantity("Sample rate", "frequency", record.sample_rate)
     values["samples"] = quantity("Samples", "count", float(len(record.signal)))
     notes = tuple(Flag("info", f"{record.channel_name}: {note}") for note in record.notes)
-    return inputs.result(values, series=found.series, flags=notes + found.flags, references=REFERENCES)
+    return inputs.result(values, series=found.series, flags=notes + found.flags, references=REFERENCES,
+                         signal_kind=kind)
 
 
 def _optional_text(inputs: Inputs, name: str) -> str | None:
@@ -73,7 +75,7 @@ def _optional_text(inputs: Inputs, name: str) -> str | None:
 
 def _values(found: Decay, kind: str) -> dict[str, Value]:
     """Result values of the decay analysis (SI)."""
-    from calc.envelope import damping_from_sigma
+    from fieldmode.calc.records.envelope import damping_from_sigma
 
     values = {
         "natural_frequency": quantity("Natural frequency", "frequency", found.natural_frequency),
@@ -118,4 +120,15 @@ SPEC = CheckSpec(
     fields=FIELDS,
     compute=compute,
     sends={"natural_frequency": "frequency", "damping_ratio": "damping"},
+    series=(
+        Series("time", "Time", "time"),
+        Series("signal", "Record as analysed", SIGNAL, "time"),
+        Series("peak_time", "Time of a fitted peak", "time"),
+        Series("peak_amplitude", "Fitted peak", SIGNAL, "peak_time"),
+        Series("envelope_time", "Time on the envelope", "time"),
+        Series("envelope", "Fitted envelope", SIGNAL, "envelope_time"),
+        Series("frequency", "Frequency", "frequency"),
+        Series("amplitude_spectrum", "Amplitude spectrum", SIGNAL, "frequency"),
+        Series("half_power_frequency", "Half-power band edges", "frequency"),
+    ),
 )

@@ -3,10 +3,14 @@
 from __future__ import annotations
 
 import math
+from typing import TYPE_CHECKING
 
-from calc.checks.guard import overflow_guard
-from calc.result import Flag, Reference, Result
-from calc.spec import CheckSpec, Field, Inputs, quantity
+from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.result import Flag, Reference, Result, quantity
+from fieldmode.calc.framework.spec import CheckSpec, Field
+
+if TYPE_CHECKING:
+    from fieldmode.calc.framework.reading import Inputs
 
 FIELDS = (
     Field("first_peak", "First peak amplitude", "number", "0.32", "", help="any unit, the same for both peaks"),
@@ -29,7 +33,9 @@ def compute(inputs: Inputs) -> Result:
         raise inputs.error("later_peak", "must be smaller than the first peak for a decaying trace")
     if first / later > 1e12:
         raise inputs.error("later_peak", "is more than 1e12 times smaller than the first peak")
-    from calc.envelope import decrement_from_peaks  # here, not at the top: other commands start faster
+    from fieldmode.calc.physics.decrement import (
+        decrement_from_peaks,  # here, not at the top: other commands start faster
+    )
 
     decrement, zeta = decrement_from_peaks(first, later, cycles)
     values = {

@@ -2,21 +2,26 @@
 
 from __future__ import annotations
 
+from typing import TYPE_CHECKING
+
 import numpy as np
 
-from calc import seismic
-from calc.checks.guard import overflow_guard
-from calc.result import SEISMIC_CAUTION, Flag, Reference, Result
-from calc.spec import CheckSpec, Field, Inputs, Value, quantity, word
-from calc.units import STANDARD_GRAVITY
+from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.result import SEISMIC_CAUTION, Flag, Reference, Result, Value, quantity, word
+from fieldmode.calc.framework.spec import CheckSpec, Field, Series
+from fieldmode.calc.physics import design_spectrum
+from fieldmode.calc.physics.constants import STANDARD_GRAVITY
+
+if TYPE_CHECKING:
+    from fieldmode.calc.framework.reading import Inputs
 
 MAX_PERIOD = 10.0
 """Longest period accepted (s)."""
 
 GROUND_FIELDS = (
-    Field("ground_type", "Ground type", "choice", "C", choices=seismic.GROUND_TYPES, shared=True,
+    Field("ground_type", "Ground type", "choice", "C", choices=design_spectrum.GROUND_TYPES, shared=True,
           help="EN 1998-1 Table 3.1"),
-    Field("spectrum_type", "Spectrum type", "choice", "1", choices=seismic.SPECTRUM_TYPES,
+    Field("spectrum_type", "Spectrum type", "choice", "1", choices=design_spectrum.SPECTRUM_TYPES,
           required=False, shared=True, help="1 for larger earthquakes (Ms > 5.5), 2 for smaller; default 1"),
     Field("design_ground_acceleration", "Ground acceleration agR", "acceleration", "0.16 g", "g",
           shared=True, help="design ground acceleration on type A ground; ag = importance x agR"),
@@ -52,16 +57,16 @@ DESIGN_REFERENCE = Reference("Design spectrum for elastic analysis, lower bound 
                              "EN 1998-1:2004 3.2.2.5, eq. 3.13-3.16")
 
 
-def read_shape(inputs: Inputs) -> tuple[seismic.SpectrumShape, str, str]:
+def read_shape(inputs: Inputs) -> tuple[design_spectrum.SpectrumShape, str, str]:
     """Spectrum shape from ground and spectrum type with any overrides; also the type and the set used
     ('Table 3.2', 'Table 3.3' or 'user S, TC', ...)."""
     ground = inputs.text("ground_type")
-    kind = inputs.text("spectrum_type") if inputs.has("spectrum_type") else "1"
-    base = seismic.recommended_shape(kind, ground)
+    spectrum_type = inputs.text("spectrum_type") if inputs.has("spectrum_type") else "1"
+    base = design_spectrum.recommended_shape(spectrum_type, ground)
     given = {name: inputs.value(name, positive=True, maximum=20.0) for name in
              ("soil_factor", "corner_period_tb", "corner_period_tc", "corner_period_td")
              if inputs.has(name)}
-    shape = seismic.SpectrumShape(given.get("soil_factor", base.soil_factor),
+    shape = design_spectrum.SpectrumShape(given.get("soil_factor", base.soil_factor),
                                   given.get("corner_period_tb", base.tb),
                                   given.get("corner_period_tc", base.tc),
                                   given.get("corner_period_td", base.td))
@@ -70,17 +75,17 @@ def read_shape(inputs: Inputs) -> tuple[seismic.SpectrumShape, str, str]:
                     "corner_period_tb")
         raise inputs.error(last, f"corner periods must rise: TB {shape.tb:g} s < TC {shape.tc:g} s < "
                                  f"TD {shape.td:g} s")
-    table = "Table 3.2" if kind == "1" else "Table 3.3"
+    table = "Table 3.2" if spectrum_type == "1" else "Table 3.3"
     note = table
     if given:
         names = {"soil_factor": "S", "corner_period_tb": "TB", "corner_period_tc": "TC", "corner_period_td": "TD"}
         note = f"user {', '.join(names[n] for n in given)}"
-    return shape, kind, note
+    return shape, spectrum_type, note
 
 
-def shape_flag(inputs: Inputs, shape: seismic.SpectrumShape, kind: str) -> Flag:
+def shape_flag(inputs: Inputs, shape: design_spectrum.SpectrumShape, spectrum_type: str) -> Flag:
     """Say which S, TB, TC, TD are used and where they come from."""
-    table = "Table 3.2 (Type 1)" if kind == "1" else "Table 3.3 (Type 2)"
+    table = "Table 3.2 (Type 1)" if spectrum_type == "1" else "Table 3.3 (Type 2)"
     values = f"S {shape.soil_factor:g}, TB {shape.tb:g} s, TC {shape.tc:g} s, TD {shape.td:g} s"
     given = any(inputs.has(n) for n in ("soil_factor", "corner_period_tb", "corner_period_tc", "corner_period_td"))
     source = "user values where given, else EN 1998-1 " if given else "EN 1998-1 "
@@ -96,18 +101,18 @@ def design_ground_acceleration(inputs: Inputs) -> tuple[float, float]:
 
 @overflow_guard("design_ground_acceleration")
 def compute(inputs: Inputs) -> Result:
-    shape, kind, note = read_shape(inputs)
+    shape, spectrum_type, note = read_shape(inputs)
     ag, importance = design_ground_acceleration(inputs)
     zeta = inputs.optional("damping", 0.05, minimum=0.0, maximum=1.0)
     assert zeta is not None
     period = inputs.value("period", minimum=0.0, maximum=MAX_PERIOD)
-    eta = seismic.damping_correction(zeta)
-    se = float(seismic.elastic_spectrum(period, ag, shape, eta))
+    eta = design_spectrum.damping_correction(zeta)
+    se = float(design_spectrum.elastic_spectrum(period, ag, shape, eta))
     values: dict[str, Value] = {
         "spectral_acceleration": quantity("Se(T), elastic", "acceleration", se),
         "spectral_displacement": quantity("SDe(T), elastic", "length",
-                                          float(seismic.spectral_displacement(se, period))),
-        "branch": word("Branch", seismic.branch(period, shape)),
+                                          float(design_spectrum.spectral_displacement(se, period))),
+        "branch": word("Branch", design_spectrum.branch(period, shape)),
         "design_ground_acceleration": quantity("ag = gamma_I agR", "acceleration", ag),
         "eta": quantity("Damping correction eta", "number", eta),
         "soil_factor": quantity("S", "number", shape.soil_factor),
@@ -116,17 +121,17 @@ def compute(inputs: Inputs) -> Result:
         "corner_period_td": quantity("TD", "time", shape.td),
         "parameter_set": word("S, TB, TC, TD from", note),
     }
-    flags = [shape_flag(inputs, shape, kind)] + _flags(inputs, period, zeta, eta, importance, shape)
+    flags = [shape_flag(inputs, shape, spectrum_type)] + _flags(inputs, period, zeta, eta, importance, shape)
     references: tuple[Reference, ...] = REFERENCES
-    end = max(seismic.SPECTRUM_END, 1.25 * period)
+    end = max(design_spectrum.SPECTRUM_END, 1.25 * period)
     grid = np.unique(np.concatenate([np.linspace(0.0, end, 241), [shape.tb, shape.tc, shape.td, period]]))
-    series = {"period": grid, "spectral_acceleration": seismic.elastic_spectrum(grid, ag, shape, eta)}
+    series = {"period": grid, "spectral_acceleration": design_spectrum.elastic_spectrum(grid, ag, shape, eta)}
     sd = None
     if inputs.has("behaviour_factor"):
         q = inputs.value("behaviour_factor", minimum=1.0, maximum=10.0)
-        sd = float(seismic.design_spectrum(period, ag, shape, q))
+        sd = float(design_spectrum.design_spectrum(period, ag, shape, q))
         values["design_spectral_acceleration"] = quantity("Sd(T), design (q)", "acceleration", sd)
-        series["design_spectral_acceleration"] = seismic.design_spectrum(grid, ag, shape, q)
+        series["design_spectral_acceleration"] = design_spectrum.design_spectrum(grid, ag, shape, q)
         references += (DESIGN_REFERENCE,)
         if zeta != 0.05:
             flags.append(Flag("info", "Sd(T) has no damping correction: q allows for it (3.2.2.5(3))"))
@@ -139,17 +144,17 @@ def compute(inputs: Inputs) -> Result:
 
 
 def _flags(inputs: Inputs, period: float, zeta: float, eta: float, importance: float,
-           shape: seismic.SpectrumShape) -> list[Flag]:
+           shape: design_spectrum.SpectrumShape) -> list[Flag]:
     flags = []
     if not inputs.has("spectrum_type"):
         flags.append(Flag("info", "spectrum type not given: Type 1"))
     if not inputs.has("importance"):
         flags.append(Flag("info", "importance factor not given: 1.0 (ordinary buildings)"))
-    if period > seismic.SPECTRUM_END:
+    if period > design_spectrum.SPECTRUM_END:
         flags.append(Flag("caution", "period beyond 4 s: 3.2.2.2 ends at 4 s (Annex A gives the displacement "
                                      "spectrum); the last branch is extended"))
-    if eta == seismic.ETA_FLOOR and zeta > 0:
-        flags.append(Flag("info", f"eta held at its lower limit {seismic.ETA_FLOOR} (3.2.2.2(3))"))
+    if eta == design_spectrum.ETA_FLOOR and zeta > 0:
+        flags.append(Flag("info", f"eta held at its lower limit {design_spectrum.ETA_FLOOR} (3.2.2.2(3))"))
     if importance > 1.4:
         flags.append(Flag("caution", "importance factor above 1.4: unusual (EN 1998-1 4.2.5 recommends 0.8-1.4)"))
     if inputs.has("mass") and inputs.has("behaviour_factor") and period <= 2.0 * shape.tc:
@@ -165,4 +170,9 @@ SPEC = CheckSpec(
     fields=FIELDS,
     compute=compute,
     caution=SEISMIC_CAUTION,
+    series=(
+        Series("period", "Period", "time"),
+        Series("spectral_acceleration", "Se(T), elastic", "acceleration", "period"),
+        Series("design_spectral_acceleration", "Sd(T), design", "acceleration", "period"),
+    ),
 )

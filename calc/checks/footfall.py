@@ -6,12 +6,13 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
-from calc.checks.guard import overflow_guard
-from calc.result import Flag, Reference, Result, Value
-from calc.spec import CheckSpec, Field, Inputs, quantity, word
+from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.result import Flag, Reference, Result, Value, quantity, word
+from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 
 if TYPE_CHECKING:
-    from calc.footfall import Band
+    from fieldmode.calc.framework.reading import Inputs
+    from fieldmode.calc.physics.footfall import Band
 
 STRUCTURES = ("footbridge", "floor")
 
@@ -32,7 +33,7 @@ FIELDS = (
 
 @overflow_guard("frequency")
 def compute(inputs: Inputs) -> Result:
-    from calc import footfall
+    from fieldmode.calc.physics import footfall
 
     structure = inputs.text("structure") if inputs.has("structure") else "footbridge"
     values: dict[str, Value] = {}
@@ -70,7 +71,7 @@ def _frequencies(inputs: Inputs) -> list[tuple[str, np.ndarray]]:
 def _direction_values(direction: str, frequencies: np.ndarray, bands: tuple[Band, ...], structure: str,
                       flags: list[Flag], sources: set[str]) -> dict[str, Value]:
     """Band membership, margins and the comfort-check verdict for one direction."""
-    from calc import footfall
+    from fieldmode.calc.physics import footfall
 
     described, verdicts = [], []
     margins = np.array([footfall.forcing_margin(float(f), bands) for f in frequencies])
@@ -111,4 +112,11 @@ SPEC = CheckSpec(
     summary="floor or footbridge frequencies against walking, running and jumping forcing bands",
     fields=FIELDS,
     compute=compute,
+    series=(
+        Series("frequencies", "Vertical frequencies", "frequency"),
+        Series("lateral_frequencies", "Lateral frequencies", "frequency"),
+        Series("band_index", "Forcing band (row of the band table)", "number"),
+        Series("band_low", "Band low edge", "frequency", "band_index"),
+        Series("band_high", "Band high edge", "frequency", "band_index"),
+    ),
 )

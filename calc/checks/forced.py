@@ -3,11 +3,15 @@
 from __future__ import annotations
 
 import math
+from typing import TYPE_CHECKING
 
-from calc import harmonic, sdof
-from calc.checks.guard import overflow_guard
-from calc.result import Flag, Reference, Result
-from calc.spec import CheckSpec, Field, Inputs, quantity
+from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.result import Flag, Reference, Result, quantity
+from fieldmode.calc.framework.spec import CheckSpec, Field, Series
+from fieldmode.calc.physics import forced, sdof
+
+if TYPE_CHECKING:
+    from fieldmode.calc.framework.reading import Inputs
 
 FIELDS = (
     Field("mass", "Mass", "mass", "9.6 t", "t", shared=True, help="a mass, or a weight read as W/g0"),
@@ -42,32 +46,32 @@ def compute(inputs: Inputs) -> Result:
     natural_frequency = sdof.angular_frequency(stiffness, mass) / (2 * math.pi)
     r = frequency / natural_frequency
     unbalance = inputs.has("unbalance")
-    force = (harmonic.unbalance_force(inputs.value("unbalance", positive=True), frequency) if unbalance
+    force = (forced.unbalance_force(inputs.value("unbalance", positive=True), frequency) if unbalance
              else inputs.value("force", positive=True))
     omega = 2 * math.pi * frequency
     static = force / stiffness
-    gain = float(harmonic.amplification(r, zeta))
+    gain = float(forced.amplification(r, zeta))
     amplitude = gain * static
-    peak_gain = harmonic.peak_amplification(zeta)
+    peak_gain = forced.peak_amplification(zeta)
     if unbalance:
-        peak_ratio = harmonic.unbalance_peak_ratio(zeta)
+        peak_ratio = forced.unbalance_peak_ratio(zeta)
         # M u / (m e) peaks at peak_gain, or without a peak tends to 1 at high speed
-        peak_amplitude = inputs.value("unbalance") / mass * (peak_gain if harmonic.has_peak(zeta) else 1.0)
+        peak_amplitude = inputs.value("unbalance") / mass * (peak_gain if forced.has_peak(zeta) else 1.0)
     else:
-        peak_ratio = harmonic.peak_ratio(zeta)
+        peak_ratio = forced.peak_ratio(zeta)
         peak_amplitude = static * peak_gain
     values = {
         "natural_frequency": quantity("Natural frequency", "frequency", natural_frequency),
         "frequency_ratio": quantity("Frequency ratio r = f/fn", "number", r),
         "amplification": quantity("Dynamic amplification R_d", "number", gain),
-        "phase": quantity("Phase lag", "angle", float(harmonic.phase(r, zeta))),
+        "phase": quantity("Phase lag", "angle", float(forced.phase(r, zeta))),
         "force_amplitude": quantity("Force amplitude", "force", force),
         "static_displacement": quantity("Static displacement F/k", "length", static),
         "amplitude": quantity("Displacement amplitude", "length", amplitude),
         "velocity_amplitude": quantity("Velocity amplitude", "velocity", omega * amplitude),
         "acceleration_amplitude": quantity("Acceleration amplitude", "acceleration", omega**2 * amplitude),
         "transmitted_force": quantity("Force into the support", "force",
-                                      force * float(harmonic.transmissibility(r, zeta))),
+                                      force * float(forced.transmissibility(r, zeta))),
         "peak_amplification": quantity("Peak amplification", "number", peak_gain),
         "peak_amplitude": quantity("Peak amplitude on run-up" if unbalance else "Peak amplitude", "length",
                                    peak_amplitude),
@@ -76,9 +80,9 @@ def compute(inputs: Inputs) -> Result:
         values["peak_frequency"] = quantity("Peak frequency", "frequency", peak_ratio * natural_frequency)
     if unbalance:
         values["unbalance_amplification"] = quantity("Unbalance response M u/(m e) = r^2 R_d", "number", r**2 * gain)
-    grid = harmonic.ratio_grid(r, zeta)
-    series = {"frequency_ratio": grid, "amplification": harmonic.amplification(grid, zeta),
-              "phase": harmonic.phase(grid, zeta)}
+    grid = forced.ratio_grid(r, zeta)
+    series = {"frequency_ratio": grid, "amplification": forced.amplification(grid, zeta),
+              "phase": forced.phase(grid, zeta)}
     references = REFERENCES + ((UNBALANCE_REFERENCE,) if unbalance else ())
     return inputs.result(values, series=series, flags=_flags(r, zeta, natural_frequency, unbalance),
                          references=references)
@@ -94,17 +98,17 @@ def _damping(inputs: Inputs) -> float:
 
 def _flags(r: float, zeta: float, natural_frequency: float, unbalance: bool) -> tuple[Flag, ...]:
     flags = []
-    if abs(r - 1.0) <= harmonic.RESONANCE_BAND:
+    if abs(r - 1.0) <= forced.RESONANCE_BAND:
         flags.append(Flag("warning", f"operating within +/-20 % of resonance (r = {r:.3g}): "
                                      "retune the support or the speed"))
     if r > 1.0:
         flags.append(Flag("caution", f"operating above resonance: run-up and run-down pass through "
                                      f"{natural_frequency:.4g} Hz, amplification up to "
-                                     f"{harmonic.peak_amplification(zeta):.3g}"))
+                                     f"{forced.peak_amplification(zeta):.3g}"))
     if unbalance:
         flags.append(Flag("info", "unbalance: force m e w^2 taken at the operating speed; amplification shown "
                                   "is R_d for that force; the run-up amplitude peaks at r = 1/sqrt(1-2 zeta^2)"))
-    if not harmonic.has_peak(zeta):
+    if not forced.has_peak(zeta):
         flags.append(Flag("info", "damping of 70.7 % or more: no resonance peak"))
     return tuple(flags)
 
@@ -115,4 +119,9 @@ SPEC = CheckSpec(
     summary="steady response to a harmonic force or rotating unbalance; distance from resonance",
     fields=FIELDS,
     compute=compute,
+    series=(
+        Series("frequency_ratio", "Frequency ratio r = f/fn", "number"),
+        Series("amplification", "Dynamic amplification R_d", "number", "frequency_ratio"),
+        Series("phase", "Phase lag", "angle", "frequency_ratio"),
+    ),
 )

@@ -3,14 +3,18 @@
 from __future__ import annotations
 
 import math
+from typing import TYPE_CHECKING
 
 import numpy as np
 
-from calc import harmonic, isolation, sdof
-from calc.checks.guard import overflow_guard
-from calc.result import Flag, Reference, Result, Value
-from calc.spec import CheckSpec, Field, Inputs, quantity
-from calc.units import STANDARD_GRAVITY
+from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.result import Flag, Reference, Result, Value, quantity
+from fieldmode.calc.framework.spec import CheckSpec, Field, Series
+from fieldmode.calc.physics import forced, isolate, sdof
+from fieldmode.calc.physics.constants import STANDARD_GRAVITY
+
+if TYPE_CHECKING:
+    from fieldmode.calc.framework.reading import Inputs
 
 FIELDS = (
     Field("frequency", "Operating frequency", "frequency", "740 rpm", "Hz", shared=True,
@@ -51,21 +55,21 @@ def compute(inputs: Inputs) -> Result:
     required_stiffness = None
     if inputs.has("target_isolation"):
         target = _target(inputs)
-        ratio = isolation.ratio_for_transmissibility(1.0 - target, zeta)
+        ratio = isolate.ratio_for_transmissibility(1.0 - target, zeta)
         required_frequency = frequency / ratio
-        required_stiffness = isolation.stiffness_for_frequency(mass, required_frequency)
+        required_stiffness = isolate.stiffness_for_frequency(mass, required_frequency)
         values["required_natural_frequency"] = quantity("Required natural frequency (at most)", "frequency",
                                                         required_frequency)
         values["required_stiffness"] = quantity("Required stiffness, total (at most)", "stiffness",
                                                 required_stiffness)
-        undamped = frequency / isolation.undamped_ratio_for_transmissibility(1.0 - target)
+        undamped = frequency / isolate.undamped_ratio_for_transmissibility(1.0 - target)
         flags.append(Flag("info", f"solved with damping: the undamped formula would allow {undamped:.4g} Hz"))
     stiffness = inputs.value("stiffness", positive=True) if inputs.has("stiffness") else required_stiffness
     assert stiffness is not None
     natural_frequency = sdof.angular_frequency(stiffness, mass) / (2 * math.pi)
     r = frequency / natural_frequency
-    transmitted = float(harmonic.transmissibility(r, zeta))
-    peak_ratio = isolation.peak_transmissibility_ratio(zeta)
+    transmitted = float(forced.transmissibility(r, zeta))
+    peak_ratio = isolate.peak_transmissibility_ratio(zeta)
     values = {
         "natural_frequency": quantity("Natural frequency on the mounts", "frequency", natural_frequency),
         "frequency_ratio": quantity("Frequency ratio r = f/fn", "number", r),
@@ -76,12 +80,12 @@ def compute(inputs: Inputs) -> Result:
         "stiffness_per_mount": quantity("Stiffness per mount", "stiffness", stiffness / mounts),
         "static_deflection": quantity("Static deflection under the weight", "length",
                                       mass * STANDARD_GRAVITY / stiffness),
-        "peak_transmissibility": quantity("Peak T at start-up", "number", isolation.peak_transmissibility(zeta)),
+        "peak_transmissibility": quantity("Peak T at start-up", "number", isolate.peak_transmissibility(zeta)),
         "peak_frequency": quantity("Frequency of the peak T", "frequency", peak_ratio * natural_frequency),
     }
     flags += _flags(inputs, r, transmitted, natural_frequency, zeta, required_stiffness, stiffness)
-    grid = np.union1d(np.linspace(0.0, max(3.0, 1.25 * r), 601), [peak_ratio, isolation.AMPLIFYING_RATIO, r])
-    series = {"frequency_ratio": grid, "transmissibility": harmonic.transmissibility(grid, zeta)}
+    grid = np.union1d(np.linspace(0.0, max(3.0, 1.25 * r), 601), [peak_ratio, isolate.AMPLIFYING_RATIO, r])
+    series = {"frequency_ratio": grid, "transmissibility": forced.transmissibility(grid, zeta)}
     return inputs.result(values, series=series, flags=tuple(flags), references=REFERENCES)
 
 
@@ -95,14 +99,14 @@ def _target(inputs: Inputs) -> float:
 def _flags(inputs: Inputs, r: float, transmitted: float, natural_frequency: float, zeta: float,
            required_stiffness: float | None, stiffness: float) -> list[Flag]:
     flags = []
-    if r < isolation.AMPLIFYING_RATIO:
+    if r < isolate.AMPLIFYING_RATIO:
         flags.append(Flag("warning", f"frequency ratio {r:.3g} is below sqrt(2): the mounts amplify the force "
                                      f"(T = {transmitted:.3g})"))
-    if abs(r - 1.0) <= harmonic.RESONANCE_BAND:
+    if abs(r - 1.0) <= forced.RESONANCE_BAND:
         flags.append(Flag("warning", "operating within +/-20 % of the mounted natural frequency"))
     if r > 1.0:
         flags.append(Flag("caution", f"start-up and run-down pass through {natural_frequency:.4g} Hz, where T "
-                                     f"reaches {isolation.peak_transmissibility(zeta):.3g}"))
+                                     f"reaches {isolate.peak_transmissibility(zeta):.3g}"))
     if required_stiffness is not None and stiffness > required_stiffness * (1 + 1e-9):
         target = inputs.value("target_isolation")
         flags.append(Flag("warning", f"isolation {100 * (1 - transmitted):.3g} % is short of the target "
@@ -118,4 +122,8 @@ SPEC = CheckSpec(
     summary="transmissibility of a machine on mounts, or the mounts a target isolation needs",
     fields=FIELDS,
     compute=compute,
+    series=(
+        Series("frequency_ratio", "Frequency ratio r = f/fn", "number"),
+        Series("transmissibility", "Transmissibility T", "number", "frequency_ratio"),
+    ),
 )

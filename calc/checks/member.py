@@ -2,17 +2,22 @@
 
 from __future__ import annotations
 
-from calc import members
-from calc.checks.guard import overflow_guard
-from calc.result import Flag, Reference, Result, Value
-from calc.spec import CheckSpec, Field, Inputs, quantity, word
+from typing import TYPE_CHECKING
+
+from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.result import Flag, Reference, Result, Value, quantity, word
+from fieldmode.calc.framework.spec import CheckSpec, Field
+from fieldmode.calc.physics import member
+
+if TYPE_CHECKING:
+    from fieldmode.calc.framework.reading import Inputs
 
 ELEMENTS = ("beam", "columns", "axial", "springs")
 SECTIONS = ("rectangle", "solid-circle", "hollow-circle")
 END_CONDITIONS = ("simply-supported", "fixed-fixed", "fixed-pinned", "cantilever")
 DEFAULT_ENDS = {"beam": "simply-supported", "columns": "fixed-fixed"}
 
-_MATERIAL_HELP = ", ".join(f"{m.name} {m.modulus / 1e9:g} GPa" for m in members.MATERIALS.values())
+_MATERIAL_HELP = ", ".join(f"{m.name} {m.modulus / 1e9:g} GPa" for m in member.MATERIALS.values())
 
 FIELDS = (
     Field("element", "Element", "choice", "beam", choices=ELEMENTS,
@@ -24,7 +29,7 @@ FIELDS = (
           help="equal members acting together (columns of a storey, beams sharing the load)"),
     Field("length", "Length or span", "length", "7.2 m", "m", required=False),
     Field("material", "Material", "choice", "steel", group="modulus", required=False,
-          choices=tuple(members.MATERIALS), help=f"sets E: {_MATERIAL_HELP}"),
+          choices=tuple(member.MATERIALS), help=f"sets E: {_MATERIAL_HELP}"),
     Field("modulus", "Young's modulus E", "modulus", "", "GPa", group="modulus", required=False),
     Field("second_moment", "Second moment of area I", "second_moment", "29000 cm^4", "cm^4", group="section",
           required=False, help="of one member, about its bending axis"),
@@ -71,17 +76,17 @@ def compute(inputs: Inputs) -> Result:
     modulus, modulus_source = _modulus(inputs, element)
     if element == "axial":
         area = _area(inputs)
-        per_member = members.axial_stiffness(modulus, area, length)
+        per_member = member.axial_stiffness(modulus, area, length)
         formula = "EA/L"
     else:
         ends = _end_conditions(inputs, element)
         second_moment = _second_moment(inputs)
         if element == "beam":
-            per_member = members.beam_stiffness(modulus, second_moment, length, ends)
-            formula = members.BEAM_SUPPORTS[ends].formula
+            per_member = member.beam_stiffness(modulus, second_moment, length, ends)
+            formula = member.BEAM_SUPPORTS[ends].formula
         else:
-            per_member = members.column_stiffness(modulus, second_moment, length, ends)
-            formula = members.COLUMN_SUPPORTS[ends].formula
+            per_member = member.column_stiffness(modulus, second_moment, length, ends)
+            formula = member.COLUMN_SUPPORTS[ends].formula
     stiffness = count * per_member
     values: dict[str, Value] = {
         "stiffness": quantity("Stiffness", "stiffness", stiffness),
@@ -108,16 +113,16 @@ def _beam_dynamics(inputs: Inputs, modulus: float, second_moment: float, span: f
                    count: int, stiffness: float) -> dict[str, Value]:
     """Mass, first frequency, self-weight deflection and the rule-of-thumb cross-check of a beam."""
     mass_per_length = inputs.value("mass_per_length", positive=True)
-    frequency = members.beam_frequency(modulus, second_moment, span, mass_per_length, ends)
-    deflection = members.self_weight_deflection(modulus, second_moment, span, mass_per_length, ends)
+    frequency = member.beam_frequency(modulus, second_moment, span, mass_per_length, ends)
+    deflection = member.self_weight_deflection(modulus, second_moment, span, mass_per_length, ends)
     return {
         "natural_frequency": quantity("First natural frequency", "frequency", frequency),
         "mass": quantity("Mass of the beams (m L)", "mass", count * mass_per_length * span),
         "equivalent_mass": quantity("Equivalent mass at midspan (k/w1^2)", "mass",
-                                    members.equivalent_mass(stiffness, frequency)),
+                                    member.equivalent_mass(stiffness, frequency)),
         "self_weight_deflection": quantity("Deflection under m g0", "length", deflection),
         "rule_of_thumb_frequency": quantity("18/sqrt(delta mm) cross-check", "frequency",
-                                            members.frequency_rule_of_thumb(deflection)),
+                                            member.frequency_rule_of_thumb(deflection)),
     }
 
 
@@ -126,7 +131,7 @@ def _springs(inputs: Inputs) -> Result:
         raise inputs.error("springs", "required for springs: give one stiffness or more")
     stiffnesses = [float(k) for k in inputs.array("springs", positive=True)]
     arrangement = inputs.text("arrangement") if inputs.has("arrangement") else "series"
-    combine = members.springs_in_series if arrangement == "series" else members.springs_in_parallel
+    combine = member.springs_in_series if arrangement == "series" else member.springs_in_parallel
     stiffness = combine(stiffnesses)
     values = {
         "stiffness": quantity("Stiffness", "stiffness", stiffness),
@@ -148,13 +153,13 @@ def _modulus(inputs: Inputs, element: str) -> tuple[float, str]:
         return inputs.value("modulus", positive=True), ""
     if not inputs.has("material"):
         raise inputs.error("material", f"give the material or Young's modulus E for {element}")
-    material = members.MATERIALS[inputs.text("material")]
+    material = member.MATERIALS[inputs.text("material")]
     return material.modulus, material.source
 
 
 def _end_conditions(inputs: Inputs, element: str) -> str:
     ends = inputs.text("end_conditions") if inputs.has("end_conditions") else DEFAULT_ENDS[element]
-    table = members.BEAM_SUPPORTS if element == "beam" else members.COLUMN_SUPPORTS
+    table = member.BEAM_SUPPORTS if element == "beam" else member.COLUMN_SUPPORTS
     if ends not in table:
         raise inputs.error("end_conditions", f"does not apply to {element}; use {' | '.join(table)}")
     return ends
@@ -184,14 +189,14 @@ def _section(inputs: Inputs) -> tuple[float, float]:
     if shape == "rectangle":
         width = _need(inputs, "width", "a rectangle")
         depth = _need(inputs, "depth", "a rectangle")
-        return members.rectangle_second_moment(width, depth), members.rectangle_area(width, depth)
+        return member.rectangle_second_moment(width, depth), member.rectangle_area(width, depth)
     diameter = _need(inputs, "diameter", f"a {shape}")
     wall = None
     if shape == "hollow-circle":
         wall = _need(inputs, "wall", "a hollow circle")
         if 2 * wall > diameter:
             raise inputs.error("wall", "must be at most half the outside diameter")
-    return members.circle_second_moment(diameter, wall), members.circle_area(diameter, wall)
+    return member.circle_second_moment(diameter, wall), member.circle_area(diameter, wall)
 
 
 SPEC = CheckSpec(

@@ -3,13 +3,17 @@
 from __future__ import annotations
 
 import math
+from typing import TYPE_CHECKING
 
 import numpy as np
 
-from calc import sdof
-from calc.checks.guard import overflow_guard
-from calc.result import Flag, Reference, Result
-from calc.spec import CheckSpec, Field, Inputs, quantity, word
+from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.result import Flag, Reference, Result, quantity, word
+from fieldmode.calc.framework.spec import CheckSpec, Field, Series
+from fieldmode.calc.physics import sdof
+
+if TYPE_CHECKING:
+    from fieldmode.calc.framework.reading import Inputs
 
 FIELDS = (
     Field("mass", "Mass", "mass", "9.6 t", "t", shared=True,
@@ -91,4 +95,9 @@ SPEC = CheckSpec(
     summary="natural frequency, damping regime and free response of one mass on a spring",
     fields=FIELDS,
     compute=compute,
+    series=(
+        Series("time", "Time", "time"),
+        Series("displacement", "Free response u", "length", "time"),
+        Series("envelope", "Decay envelope", "length", "time"),
+    ),
 )

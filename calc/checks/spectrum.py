@@ -6,13 +6,14 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
-from calc import groundmotion, seismic
-from calc.checks.design_spectrum import GROUND_FIELDS, design_ground_acceleration, read_shape, shape_flag
-from calc.checks.guard import overflow_guard
-from calc.checks.record_columns import RECORD_COLUMN_FIELDS
-from calc.groundmotion import demo_path
-from calc.result import SEISMIC_CAUTION, Flag, Reference, Result
-from calc.spec import CheckSpec, Field, Inputs, Value, quantity
+from fieldmode.calc.checks.design_spectrum import GROUND_FIELDS, design_ground_acceleration, read_shape, shape_flag
+from fieldmode.calc.demo import GROUND_MOTION, demo_file
+from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.result import SEISMIC_CAUTION, Flag, Reference, Result, Value, quantity
+from fieldmode.calc.framework.spec import CheckSpec, Field, Series
+from fieldmode.calc.physics import design_spectrum
+from fieldmode.calc.records import accelerogram
+from fieldmode.calc.records.columns import RECORD_COLUMN_FIELDS
 
 MAX_PERIOD = 20.0
 """Longest period accepted (s)."""
@@ -21,7 +22,8 @@ MIN_STEP, MAX_STEP = 1e-5, 1.0
 MAX_ACCELERATION = 1e4
 """Largest ground acceleration accepted (m/s^2); more means a wrong unit."""
 if TYPE_CHECKING:
-    from calc.spectrum import Spectrum
+    from fieldmode.calc.framework.reading import Inputs
+    from fieldmode.calc.physics.spectrum import Spectrum
 
 DEFAULT_GRID = (0.02, 10.0, 200)
 """Default period grid: shortest (s), longest (s), number of log-spaced periods (as calc.spectrum)."""
@@ -32,7 +34,7 @@ MAX_COUNT = 500
 SIGNAL_UNITS = ("g", "m/s^2", "cm/s^2")
 
 FIELDS = (
-    Field("file", "Accelerogram file", "path", demo_path(), positional=True,
+    Field("file", "Accelerogram file", "path", str(demo_file(GROUND_MOTION)), positional=True,
           help="CSV or text: a time column and a ground acceleration column, or the signal and --sample-rate"),
     Field("signal_unit", "Signal unit", "choice", "g", choices=SIGNAL_UNITS, required=False,
           help="unit of the acceleration column; default from its header"),
@@ -62,21 +64,21 @@ REFERENCES = (
 
 @overflow_guard("file")
 def compute(inputs: Inputs) -> Result:
-    from calc import spectrum as core  # imported here: every other command starts faster
+    from fieldmode.calc.physics import spectrum as core  # imported here: every other command starts faster
 
     time, acc, dt, notes = _record(inputs)
     zeta = inputs.optional("damping", 0.05, minimum=0.0, maximum=0.9)
     assert zeta is not None
     periods = _periods(inputs)
     marked = inputs.optional("period", None, minimum=MIN_PERIOD, maximum=MAX_PERIOD)
-    corrected = groundmotion.baseline_corrected(acc, dt)
+    corrected = accelerogram.baseline_corrected(acc, dt)
     try:
         spectrum = core.response_spectrum(corrected, dt, periods, zeta)
         single = core.response_spectrum(corrected, dt, np.array([marked]), zeta) if marked else None
     except core.WorkLimitError as error:
         name = "periods" if inputs.has("periods") else "shortest_period"
         raise inputs.error(name, f"too fine for this record ({error}): use longer periods or fewer") from error
-    pga, pgv, pgd = groundmotion.ground_peaks(corrected, dt)
+    pga, pgv, pgd = accelerogram.ground_peaks(corrected, dt)
     peak = int(np.argmax(spectrum.psa))
     values: dict[str, Value] = {
         "pga": quantity("Peak ground acceleration", "acceleration", pga),
@@ -99,14 +101,14 @@ def compute(inputs: Inputs) -> Result:
     if inputs.has("design_ground_acceleration"):
         if not inputs.has("ground_type"):
             raise inputs.error("ground_type", "give the ground type for the EN 1998-1 overlay")
-        shape, kind, _ = read_shape(inputs)
+        shape, spectrum_type, _ = read_shape(inputs)
         ag, _ = design_ground_acceleration(inputs)
-        eta = seismic.damping_correction(zeta)
-        series["design_psa"] = seismic.elastic_spectrum(periods, ag, shape, eta)
+        eta = design_spectrum.damping_correction(zeta)
+        series["design_psa"] = design_spectrum.elastic_spectrum(periods, ag, shape, eta)
         if marked is not None:
-            design = float(seismic.elastic_spectrum(marked, ag, shape, eta))
+            design = float(design_spectrum.elastic_spectrum(marked, ag, shape, eta))
             values["design_spectral_acceleration"] = quantity("EN 1998-1 Se(T)", "acceleration", design)
-        overlay = shape_flag(inputs, shape, kind)
+        overlay = shape_flag(inputs, shape, spectrum_type)
         notes.append(Flag("info", f"overlay {overlay.text}"))
         references += (Reference("Horizontal elastic response spectrum", "EN 1998-1:2004 3.2.2.2, eq. 3.2-3.6"),)
     flags = notes + _flags(spectrum, dt, time[-1] - time[0], acc, corrected, pga)
@@ -147,14 +149,14 @@ def _periods(inputs: Inputs) -> np.ndarray:
 
 def _record(inputs: Inputs) -> tuple[np.ndarray, np.ndarray, float, list[Flag]]:
     """Time (s), ground acceleration (m/s^2), time step (s) and reading notes of the file."""
-    from calc.records import MAX_SAMPLE_RATE, MIN_SAMPLE_RATE, read_record
+    from fieldmode.calc.records.read import MAX_SAMPLE_RATE, MIN_SAMPLE_RATE, read_record
 
     rate = inputs.optional("sample_rate", None, minimum=MIN_SAMPLE_RATE, maximum=MAX_SAMPLE_RATE)
     record = read_record(inputs.text("file"), time_column=_optional_text(inputs, "time_column"),
                          signal_column=_optional_text(inputs, "signal_column"), sample_rate=rate,
                          signal_unit=_optional_text(inputs, "signal_unit"))
-    if record.quantity != "acceleration":
-        found = f"is a {record.quantity}" if record.quantity else "has no unit in its header"
+    if record.kind != "acceleration":
+        found = f"is a {record.kind}" if record.kind else "has no unit in its header"
         raise inputs.error("signal_unit", f"signal column {record.channel_name!r} {found}: give the "
                                           "acceleration unit")
     dt = 1.0 / record.sample_rate
@@ -198,4 +200,18 @@ SPEC = CheckSpec(
     fields=FIELDS,
     compute=compute,
     caution=SEISMIC_CAUTION,
+    series=(
+        Series("period", "Period", "time"),
+        Series("sd", "sd, peak relative displacement", "length", "period"),
+        Series("sv", "sv, peak relative velocity", "velocity", "period"),
+        Series("psv", "psv, pseudo-velocity", "velocity", "period"),
+        Series("psa", "psa, pseudo-acceleration", "acceleration", "period"),
+        Series("total_acceleration", "Peak total acceleration", "acceleration", "period"),
+        Series("design_psa", "EN 1998-1 Se(T)", "acceleration", "period"),
+        Series("time", "Time", "time"),
+        Series("ground_acceleration", "Ground acceleration (baseline-corrected)", "acceleration", "time"),
+        Series("response_displacement", "Relative displacement at the marked period", "length", "time"),
+        Series("response_velocity", "Relative velocity at the marked period", "velocity", "time"),
+        Series("response_total_acceleration", "Total acceleration at the marked period", "acceleration", "time"),
+    ),
 )

@@ -1,5 +1,9 @@
 """Check `storeys`: shear-building periods, mode shapes, effective masses, Rayleigh damping and
-modal response-spectrum combination (SRSS and CQC)."""
+modal response-spectrum combination (SRSS and CQC).
+
+The seismic part takes the EN 1998-1 spectrum (3.2.2.2 elastic and 3.2.2.5 design) with the ground
+fields, National Annex overrides and their reading of the `design-spectrum` check.
+"""
 
 from __future__ import annotations
 
@@ -7,13 +11,14 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
-from calc.checks import storeys_demand as demand
-from calc.checks.guard import overflow_guard
-from calc.result import SEISMIC_CAUTION, Flag, Reference, Result, Value
-from calc.spec import CheckSpec, Field, Inputs, quantity
+from fieldmode.calc.checks.design_spectrum import GROUND_FIELDS, SHAPE_FIELDS, design_ground_acceleration, read_shape
+from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.result import SEISMIC_CAUTION, Flag, Reference, Result, Value, quantity, word
+from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 
 if TYPE_CHECKING:
-    from calc.storeys import Modes
+    from fieldmode.calc.framework.reading import Inputs
+    from fieldmode.calc.physics.storeys import Modes
 
 MAX_SPREAD = 1e6
 """Largest ratio between the largest and smallest storey mass, or stiffness, accepted (beyond it the
@@ -22,6 +27,27 @@ DEFAULT_DAMPING = 0.05
 """Damping ratio of every mode when none is given (the usual 5 % of design spectra)."""
 CHART_MODES = 3
 """Mode shapes kept as chart series."""
+
+CLOSE_PERIODS = 0.9
+"""Modes whose periods are within 10 % of each other are not independent (SRSS unsafe)."""
+
+SEISMIC_FIELDS = (
+    *(Field(f.name, f.label, f.kind, f.default, f.unit, required=False, choices=f.choices, shared=True,
+            help=f.help + ("; leave empty for modes only" if f.name == "design_ground_acceleration" else ""))
+      for f in GROUND_FIELDS),
+    Field("behaviour_factor", "Behaviour factor q", "number", "", "", required=False,
+          help="gives the design spectrum (EN 1998-1 3.2.2.5); displacements are multiplied by q (4.3.4)"),
+    *SHAPE_FIELDS,
+)
+
+SEISMIC_REFERENCES = (
+    Reference("Spectral acceleration per mode, recommended values of Table 3.2 / 3.3",
+              "EN 1998-1:2004 3.2.2.2 (elastic, eta = sqrt(10/(5+xi)) >= 0.55) and 3.2.2.5 (design, beta = 0.2)"),
+    Reference("Modal peaks u = Gamma phi Sa / omega^2 combined by SRSS and by CQC",
+              "Der Kiureghian (1981) correlation coefficients; Chopra, Dynamics of Structures, ch. 13; "
+              "EN 1998-1:2004 4.3.3.3.2"),
+    Reference("Design displacements d_s = q d_e", "EN 1998-1:2004 4.3.4(1)"),
+)
 
 FIELDS = (
     Field("masses", "Storey masses", "mass", "310 t, 300 t, 240 t", "t", many=True,
@@ -34,7 +60,7 @@ FIELDS = (
           help="of every mode, for Rayleigh damping and CQC (default 5 %)"),
     Field("rayleigh_modes", "Rayleigh modes", "count", "1, 2", "", many=True, required=False,
           help="the two modes given the damping ratio exactly"),
-    *demand.FIELDS,
+    *SEISMIC_FIELDS,
 )
 
 REFERENCES = (
@@ -50,7 +76,7 @@ REFERENCES = (
 
 @overflow_guard("masses")
 def compute(inputs: Inputs) -> Result:
-    from calc import storeys
+    from fieldmode.calc.physics import storeys
 
     masses, stiffnesses = _chain(inputs)
     zeta = inputs.optional("damping", DEFAULT_DAMPING, minimum=0.0, maximum=0.5) or 0.0
@@ -79,9 +105,61 @@ def compute(inputs: Inputs) -> Result:
     references: tuple[Reference, ...] = REFERENCES
     if inputs.has("design_ground_acceleration"):
         heights = inputs.array("heights") if inputs.has("heights") else None
-        values.update(demand.modal_demand(inputs, found, masses, heights, zeta, flags))
-        references += demand.REFERENCES
+        values.update(modal_demand(inputs, found, masses, heights, zeta, flags))
+        references += SEISMIC_REFERENCES
     return inputs.result(values, series=_series(inputs, found), flags=tuple(flags), references=references)
+
+
+def modal_demand(inputs: Inputs, found: Modes, masses: np.ndarray, heights: np.ndarray | None,
+                 zeta: float, flags: list[Flag]) -> dict[str, Value]:
+    """Spectral accelerations per mode and the combined floor displacements, drifts and storey shears."""
+    from fieldmode.calc.physics import storeys
+
+    accelerations, described, q = spectral_accelerations(inputs, found.periods, zeta)
+    peaks = storeys.modal_peaks(found, masses, accelerations)
+    rho = storeys.correlation_cqc(found.omega, zeta)
+    values: dict[str, Value] = {
+        "spectrum_used": word("Spectrum", described),
+        "spectral_acceleration": quantity("Sa per mode", "acceleration", accelerations),
+    }
+    for name, label, kind, modal, scale in (
+            ("displacement", "displacement", "length", peaks.displacement, q),
+            ("drift", "drift", "length", peaks.drift, q),
+            ("shear", "storey shear", "force", peaks.shear, 1.0)):
+        for method, combined in (("srss", storeys.combine_srss(modal)), ("cqc", storeys.combine_cqc(modal, rho))):
+            values[f"{name}_{method}"] = quantity(f"{method.upper()} {label}", kind, scale * combined)
+    values["base_shear_srss"] = quantity("SRSS base shear", "force", values["shear_srss"].si()[0])
+    values["base_shear_cqc"] = quantity("CQC base shear", "force", values["shear_cqc"].si()[0])
+    if heights is not None:
+        values["drift_ratio_cqc"] = quantity("CQC drift ratio", "ratio", np.array(values["drift_cqc"].si()) / heights)
+    flags.extend(_close_modes(found.periods))
+    if q != 1.0:
+        flags.append(Flag("info", f"displacements and drifts are q = {q:g} times the design-spectrum values"))
+    return values
+
+
+def spectral_accelerations(inputs: Inputs, periods: np.ndarray, zeta: float) -> tuple[np.ndarray, str, float]:
+    """Spectral acceleration (m/s^2) at each period, a description of the spectrum, and the
+    factor q applied to displacements (1 for the elastic spectrum)."""
+    from fieldmode.calc.physics import design_spectrum
+
+    if not inputs.has("ground_type"):
+        raise inputs.error("ground_type", "give the ground type for the spectrum")
+    shape, spectrum_type, note = read_shape(inputs)
+    ag, _ = design_ground_acceleration(inputs)
+    corners = f"S {shape.soil_factor:g}, TB {shape.tb:g} s, TC {shape.tc:g} s, TD {shape.td:g} s ({note})"
+    if inputs.has("behaviour_factor"):
+        q = inputs.value("behaviour_factor", minimum=1.0, maximum=10.0)
+        return design_spectrum.design_spectrum(periods, ag, shape, q), f"design Sd, q = {q:g}; {corners}", q
+    eta = design_spectrum.damping_correction(zeta)
+    return design_spectrum.elastic_spectrum(periods, ag, shape, eta), f"elastic Se, eta = {eta:.3g}; {corners}", 1.0
+
+
+def _close_modes(periods: np.ndarray) -> list[Flag]:
+    """A caution for neighbouring modes too close in period for SRSS."""
+    close = [n for n in range(1, len(periods)) if periods[n] > CLOSE_PERIODS * periods[n - 1]]
+    return [Flag("caution", f"modes {n} and {n + 1} are within 10 % in period: SRSS is unsafe, use CQC "
+                            "(EN 1998-1:2004 4.3.3.3.2)") for n in close]
 
 
 def _chain(inputs: Inputs) -> tuple[np.ndarray, np.ndarray]:
@@ -103,7 +181,7 @@ def _chain(inputs: Inputs) -> tuple[np.ndarray, np.ndarray]:
 
 def _rayleigh(inputs: Inputs, omega: np.ndarray, zeta: float, flags: list[Flag]) -> dict[str, Value]:
     """Rayleigh coefficients for the two chosen modes, and the damping ratio they give every mode."""
-    from calc import storeys
+    from fieldmode.calc.physics import storeys
 
     if len(omega) < 2:
         flags.append(Flag("info", "one storey: Rayleigh damping needs two modes"))
@@ -127,10 +205,9 @@ def _rayleigh(inputs: Inputs, omega: np.ndarray, zeta: float, flags: list[Flag])
 def _series(inputs: Inputs, found: Modes) -> dict[str, np.ndarray]:
     """Floor levels from the base up and the first mode shapes, each with 0 at the base."""
     count = found.shapes.shape[1]
+    series = {"storey": np.arange(count + 1, dtype=float)}
     if inputs.has("heights"):
-        series = {"height": np.concatenate([[0.0], np.cumsum(inputs.array("heights"))])}
-    else:
-        series = {"storey": np.arange(count + 1, dtype=float)}
+        series["height"] = np.concatenate([[0.0], np.cumsum(inputs.array("heights"))])
     for n, shape in enumerate(found.shapes[:CHART_MODES], start=1):
         series[f"mode_{n}"] = np.concatenate([[0.0], shape])
     return series
@@ -144,4 +221,9 @@ SPEC = CheckSpec(
     compute=compute,
     caution=SEISMIC_CAUTION,
     sends={"period": "period"},
+    series=(
+        Series("storey", "Floor (0 = base)", "number"),
+        Series("height", "Height above the base", "length", "storey"),
+        *(Series(f"mode_{n}", f"Mode {n} shape (roof = 1)", "number", "storey") for n in range(1, CHART_MODES + 1)),
+    ),
 )

@@ -7,12 +7,13 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
-from calc.checks.guard import overflow_guard
-from calc.result import Flag, Reference, Result
-from calc.spec import CheckSpec, Field, Inputs, quantity
+from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.result import Flag, Reference, Result, quantity
+from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 
 if TYPE_CHECKING:
-    from calc.tmd import Optimum
+    from fieldmode.calc.framework.reading import Inputs
+    from fieldmode.calc.physics.tmd import Optimum
 
 EXCITATIONS = ("force", "ground")
 
@@ -54,7 +55,7 @@ RESPONSE_REFERENCE = Reference("Peaks from the two-mass frequency response (comp
 
 @overflow_guard("modal_mass")
 def compute(inputs: Inputs) -> Result:
-    from calc import tmd
+    from fieldmode.calc.physics import tmd
 
     frequency = inputs.value("frequency", positive=True)
     modal_mass = inputs.value("modal_mass", positive=True)
@@ -107,7 +108,7 @@ def compute(inputs: Inputs) -> Result:
 
 
 def _solve_mass_ratio(inputs: Inputs, zeta_p: float, excitation: str) -> float:
-    from calc import tmd
+    from fieldmode.calc.physics import tmd
 
     target = inputs.value("target_damping", positive=True, maximum=0.5)
     if target <= zeta_p:
@@ -148,7 +149,7 @@ def _flags(mu: float, zeta_p: float, peak: float, low: float, high: float) -> li
 
 def _series(mu: float, best: Optimum, zeta_p: float, excitation: str) -> dict[str, np.ndarray]:
     """Response curves for the chart: with the damper, without, and mistuned either side."""
-    from calc import tmd
+    from fieldmode.calc.physics import tmd
 
     spread = max(0.3, 3 * math.sqrt(mu))
     ratio = 1 + spread * np.linspace(-1.0, 1.0, CHART_POINTS)
@@ -169,4 +170,13 @@ SPEC = CheckSpec(
     summary="damper mass, frequency, stiffness and damping for one mode, with and without the damper",
     fields=FIELDS,
     compute=compute,
+    series=(
+        Series("frequency_ratio", "Forcing / mode frequency", "number"),
+        Series("amplification", "Amplification with the damper", "number", "frequency_ratio"),
+        Series("amplification_without", "Amplification without the damper", "number", "frequency_ratio"),
+        Series("amplification_mistuned_low", f"With the damper tuned {MISTUNING:.0%} low", "number",
+               "frequency_ratio"),
+        Series("amplification_mistuned_high", f"With the damper tuned {MISTUNING:.0%} high", "number",
+               "frequency_ratio"),
+    ),
 )

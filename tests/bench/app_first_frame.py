@@ -42,10 +42,10 @@ def bare() -> None:
 
 def field(state: Path) -> None:
     sys.path.insert(0, str(ROOT))
-    import tui.cli  # noqa: F401  (the console script's module, as `fieldmode` loads it)
-    from tui.app import launch
+    import fieldmode.tui.cli  # noqa: F401  (the console script's module, as `fieldmode` loads it)
+    from fieldmode.tui.launch_old import launch
 
-    def shown(app: Any) -> None:  # the FieldApp, not imported here: launch() imports it
+    def shown(app: Any) -> None:  # the FieldmodeApp, not imported here: launch() imports it
         shown_at.append(time.monotonic())
         app.exit()
 
@@ -57,7 +57,7 @@ if __name__ == "__main__":
         bare()
     elif sys.argv[1] == "floor":
         sys.path.insert(0, str(ROOT))
-        import calc.checks  # noqa: F401  (what any screen of results needs first)
+        import fieldmode.calc.checks  # noqa: F401  (what any screen of results needs first)
 
         bare()
     else:

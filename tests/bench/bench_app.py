@@ -66,12 +66,12 @@ async def _keystrokes(chart: bool) -> list[float]:
     """
     from textual import events
 
-    from tui.field_app import FieldApp
-    from tui.widgets.chart_view import ChartPane
-    from tui.widgets.check_view import THROTTLE
+    from fieldmode.tui.app import FieldmodeApp
+    from fieldmode.tui.widgets.chart_view import ChartPane
+    from fieldmode.tui.widgets.check_view import THROTTLE
 
     with tempfile.TemporaryDirectory() as folder:
-        app = FieldApp(state_folder=Path(folder))
+        app = FieldmodeApp(state_folder=Path(folder))
         async with app.run_test(size=(80, 24)) as pilot:
             view = app.current_view
             while not view.up_to_date:

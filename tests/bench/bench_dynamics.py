@@ -8,8 +8,8 @@ import time
 import plotext
 from common import BenchRow
 
-from calc.checks import BY_ID
-from tui.charts import CHARTS
+from fieldmode.calc.checks import BY_ID
+from fieldmode.tui.charts import panels_of
 
 KEYSTROKE_BUDGET = 0.030
 """DESIGN.md section 7: one keystroke to updated results and chart, median (s)."""
@@ -23,7 +23,7 @@ EDITS = {
 
 def _update(check: str, texts: dict[str, str]) -> None:
     result = BY_ID[check].evaluate(texts)
-    for draw in CHARTS[check]:
+    for draw in panels_of(check):
         plotext.clf()
         plotext.plotsize(70, 18)
         draw(plotext, result, "si")

@@ -23,7 +23,7 @@ LOOP_STEPS = 2_000
 
 CHILD = r"""
 import json, math, statistics, time
-from calc import spectrum as core  # first: the core sets up the BLAS threads before numpy loads
+from fieldmode.calc.physics import spectrum as core  # first: the core sets up the BLAS threads before numpy loads
 import numpy as np
 
 steps, loop_steps = {steps}, {loop_steps}
@@ -94,7 +94,7 @@ def _record(folder: Path) -> Path:
     """A 40,000-step record (0.01 s steps) of invented filtered noise, in g."""
     import numpy as np
 
-    from calc.groundmotion import MotionParameters, synthetic_motion
+    from fieldmode.calc.demo.ground_motion import MotionParameters, synthetic_motion
 
     time, acc = synthetic_motion(MotionParameters(duration=(STEPS - 1) * 0.01))
     path = folder / "record_40000.csv"

@@ -5,8 +5,8 @@ from __future__ import annotations
 import numpy as np
 import pytest
 
-from calc.checks import BY_ID
-from calc.units import InputError
+from fieldmode.calc.checks import BY_ID
+from fieldmode.calc.framework.units import InputError
 
 SPEC = BY_ID["footfall"]
 

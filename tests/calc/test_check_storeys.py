@@ -9,8 +9,8 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from calc.checks import BY_ID
-from calc.units import InputError
+from fieldmode.calc.checks import BY_ID
+from fieldmode.calc.framework.units import InputError
 
 SPEC = BY_ID["storeys"]
 

@@ -7,8 +7,8 @@ import math
 import numpy as np
 import pytest
 
-from calc.checks import BY_ID
-from calc.units import InputError
+from fieldmode.calc.checks import BY_ID
+from fieldmode.calc.framework.units import InputError
 
 SPEC = BY_ID["storeys"]
 G0 = 9.80665  # Source: 3rd CGPM (1901), standard gravity

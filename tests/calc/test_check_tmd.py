@@ -7,8 +7,8 @@ import math
 import numpy as np
 import pytest
 
-from calc.checks import BY_ID
-from calc.units import InputError
+from fieldmode.calc.checks import BY_ID
+from fieldmode.calc.framework.units import InputError
 
 SPEC = BY_ID["tmd"]
 

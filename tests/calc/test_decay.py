@@ -8,9 +8,9 @@ from functools import cache
 import numpy as np
 import pytest
 
-from calc import decay
-from calc.decay import DecayError, analyse
-from calc.envelope import decrement_from_peaks
+from fieldmode.calc.physics.decrement import decrement_from_peaks
+from fieldmode.calc.records import decay
+from fieldmode.calc.records.decay import DecayError, analyse
 
 
 @cache

@@ -10,11 +10,13 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from calc.checks import BY_ID
-from calc.demo_records import HeelDrop, demo_path, demo_text
-from calc.result import Result
-from calc.spec import Field, read_field
-from calc.units import InputError
+from fieldmode.calc.checks import BY_ID
+from fieldmode.calc.demo import HEEL_DROP, demo_file
+from fieldmode.calc.demo.heel_drop import HeelDrop, demo_text
+from fieldmode.calc.framework.reading import read_field
+from fieldmode.calc.framework.result import Result
+from fieldmode.calc.framework.spec import Field
+from fieldmode.calc.framework.units import InputError
 
 DECAY = BY_ID["decay"]
 DECREMENT = BY_ID["decrement"]
@@ -29,7 +31,7 @@ def all_finite(result: Result) -> bool:
 
 
 def test_demo_record_ships_and_is_reproducible() -> None:
-    path = demo_path()
+    path = demo_file(HEEL_DROP)
     assert path.is_absolute() and path.is_file()
     assert DECAY.field("file").default == str(path)
     shipped = path.read_text(encoding="utf-8")
@@ -78,14 +80,14 @@ def test_signal_unit_scales_amplitudes_only(tmp_path: Path) -> None:
 
 
 def test_sample_rate_and_column_options(tmp_path: Path) -> None:
-    data = np.loadtxt(demo_path(), delimiter=",", comments="#", skiprows=4)
+    data = np.loadtxt(demo_file(HEEL_DROP), delimiter=",", comments="#", skiprows=4)
     single = tmp_path / "single.txt"
     np.savetxt(single, data[:, 1], fmt="%.5f")
     by_rate = DECAY.evaluate({"file": str(single), "sample_rate": "12000 cpm"})
     demo = DECAY.evaluate(DECAY.demo_texts())
     assert si(by_rate, "sample_rate") == pytest.approx(200.0)
     assert si(by_rate, "damping_ratio") == pytest.approx(si(demo, "damping_ratio"), rel=1e-6)
-    by_column = DECAY.evaluate({"file": str(demo_path()), "time_column": "time", "signal_column": "2"})
+    by_column = DECAY.evaluate({"file": str(demo_file(HEEL_DROP)), "time_column": "time", "signal_column": "2"})
     assert si(by_column, "damping_ratio") == pytest.approx(si(demo, "damping_ratio"), rel=1e-9)
 
 

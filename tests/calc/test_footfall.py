@@ -4,7 +4,7 @@ from __future__ import annotations
 
 import pytest
 
-from calc import footfall
+from fieldmode.calc.physics import footfall
 
 
 def _band(name: str) -> footfall.Band:

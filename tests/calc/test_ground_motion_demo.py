@@ -2,16 +2,14 @@
 
 from __future__ import annotations
 
-from pathlib import Path
-
 import numpy as np
 
-from calc import groundmotion
+from fieldmode.calc.demo import GROUND_MOTION, demo_file, ground_motion
 
 
 def test_shipped_file_regenerates() -> None:
-    shipped = Path(groundmotion.demo_path()).read_text(encoding="utf-8").splitlines()
-    fresh = groundmotion.demo_text().splitlines()
+    shipped = demo_file(GROUND_MOTION).read_text(encoding="utf-8").splitlines()
+    fresh = ground_motion.demo_text().splitlines()
     assert shipped[:5] == fresh[:5]
     assert len(shipped) == len(fresh) == 5 + 4001
     old = np.loadtxt(shipped[5:], delimiter=",")
@@ -20,8 +18,8 @@ def test_shipped_file_regenerates() -> None:
 
 
 def test_demo_motion_is_invented_and_described() -> None:
-    time, acc = groundmotion.synthetic_motion()
-    assert np.abs(acc).max() == groundmotion.PEAK_G
-    assert time[1] - time[0] == groundmotion.MotionParameters().time_step
-    header = groundmotion.demo_text().splitlines()[0]
+    time, acc = ground_motion.synthetic_motion()
+    assert np.abs(acc).max() == ground_motion.PEAK_G
+    assert time[1] - time[0] == ground_motion.MotionParameters().time_step
+    header = ground_motion.demo_text().splitlines()[0]
     assert "synthetic" in header and "not a recorded earthquake" in header

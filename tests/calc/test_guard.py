@@ -6,9 +6,9 @@ import json
 
 import pytest
 
-from calc.checks import BY_ID
-from calc.units import InputError
-from tui.cli import main
+from fieldmode.calc.checks import BY_ID
+from fieldmode.calc.framework.units import InputError
+from fieldmode.tui.cli import main
 
 EXTREMES = [
     ("sdof", {"mass": "1e-304 kg"}),

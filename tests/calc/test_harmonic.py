@@ -11,9 +11,9 @@ from hypothesis import strategies as st
 from scipy.integrate import solve_ivp
 from scipy.optimize import minimize_scalar
 
-from calc import harmonic
-from calc.checks import BY_ID
-from calc.units import InputError
+from fieldmode.calc.checks import BY_ID
+from fieldmode.calc.framework.units import InputError
+from fieldmode.calc.physics import forced
 
 SPEC = BY_ID["forced"]
 
@@ -83,30 +83,30 @@ def test_unbalance_force_is_m_e_omega_squared() -> None:
     (0.5, 0.1, 1 / math.sqrt(0.75**2 + 0.1**2), math.degrees(math.atan2(0.1, 0.75))),  # Source: Chopra eq. 3.2.11
 ])
 def test_amplification_and_phase_closed_forms(r: float, zeta: float, gain: float, lag: float) -> None:
-    assert harmonic.amplification(r, zeta) == pytest.approx(gain)
-    assert harmonic.phase(r, zeta) == pytest.approx(lag, abs=1e-9)
+    assert forced.amplification(r, zeta) == pytest.approx(gain)
+    assert forced.phase(r, zeta) == pytest.approx(lag, abs=1e-9)
 
 
 @pytest.mark.parametrize("zeta", [0.005, 0.02, 0.05, 0.1, 0.3, 0.6])
 def test_peak_amplification_and_where(zeta: float) -> None:
     # Source: Chopra, Dynamics of Structures, sec. 3.2.5: peak 1/(2 zeta sqrt(1-zeta^2)) at r = sqrt(1-2 zeta^2)
-    assert harmonic.peak_amplification(zeta) == pytest.approx(1 / (2 * zeta * math.sqrt(1 - zeta**2)))
-    assert harmonic.peak_ratio(zeta) == pytest.approx(math.sqrt(1 - 2 * zeta**2))
+    assert forced.peak_amplification(zeta) == pytest.approx(1 / (2 * zeta * math.sqrt(1 - zeta**2)))
+    assert forced.peak_ratio(zeta) == pytest.approx(math.sqrt(1 - 2 * zeta**2))
     # Oracle: scipy.optimize.minimize_scalar (bounded) on -R_d
-    found = minimize_scalar(lambda r: -harmonic.amplification(r, zeta), bounds=(0.0, 1.5), method="bounded",
+    found = minimize_scalar(lambda r: -forced.amplification(r, zeta), bounds=(0.0, 1.5), method="bounded",
                             options={"xatol": 1e-12})
-    assert harmonic.peak_ratio(zeta) == pytest.approx(found.x, abs=1e-5)
-    assert harmonic.peak_amplification(zeta) == pytest.approx(-found.fun, rel=1e-9)
+    assert forced.peak_ratio(zeta) == pytest.approx(found.x, abs=1e-5)
+    assert forced.peak_amplification(zeta) == pytest.approx(-found.fun, rel=1e-9)
 
 
 @pytest.mark.parametrize("zeta", [0.02, 0.1, 0.4])
 def test_unbalance_peak(zeta: float) -> None:
     # From memory: Den Hartog, Mechanical Vibrations, sec. 2.x: M u/(m e) = r^2 R_d peaks at r = 1/sqrt(1-2 zeta^2)
     # Oracle: scipy.optimize.minimize_scalar (bounded) on -r^2 R_d
-    found = minimize_scalar(lambda r: -(r**2) * harmonic.amplification(r, zeta), bounds=(0.5, 3.0),
+    found = minimize_scalar(lambda r: -(r**2) * forced.amplification(r, zeta), bounds=(0.5, 3.0),
                             method="bounded", options={"xatol": 1e-12})
-    assert harmonic.unbalance_peak_ratio(zeta) == pytest.approx(found.x, abs=1e-5)
-    assert harmonic.peak_amplification(zeta) == pytest.approx(-found.fun, rel=1e-9)
+    assert forced.unbalance_peak_ratio(zeta) == pytest.approx(found.x, abs=1e-5)
+    assert forced.peak_amplification(zeta) == pytest.approx(-found.fun, rel=1e-9)
     result = SPEC.evaluate({**FAN, "damping": f"{zeta}"})
     assert result.values["peak_amplitude"].si() == pytest.approx(-found.fun * 0.35 / 9600, rel=1e-9)
     assert result.values["peak_frequency"].si() == pytest.approx(

@@ -11,9 +11,9 @@ from hypothesis import strategies as st
 from scipy.integrate import solve_ivp
 from scipy.optimize import brentq, minimize_scalar
 
-from calc import harmonic, isolation
-from calc.checks import BY_ID
-from calc.units import STANDARD_GRAVITY, InputError
+from fieldmode.calc.checks import BY_ID
+from fieldmode.calc.framework.units import STANDARD_GRAVITY, InputError
+from fieldmode.calc.physics import forced, isolate
 
 SPEC = BY_ID["isolate"]
 
@@ -25,45 +25,45 @@ FAN = {"frequency": "740 rpm", "mass": "9.6 t", "mounts": "4", "damping": "2 %",
 @given(zeta=st.floats(min_value=0.0, max_value=10.0))
 def test_transmissibility_is_one_at_root_two_for_every_damping(zeta: float) -> None:
     # Source: Chopra, Dynamics of Structures, sec. 3.5 (Fig. 3.5.2): all curves pass T = 1 at r = sqrt(2)
-    assert harmonic.transmissibility(math.sqrt(2.0), zeta) == pytest.approx(1.0, rel=1e-12)
+    assert forced.transmissibility(math.sqrt(2.0), zeta) == pytest.approx(1.0, rel=1e-12)
 
 
 @pytest.mark.parametrize(("r", "zeta"), [(0.5, 0.05), (1.0, 0.1), (3.0, 0.02), (5.0, 0.3)])
 def test_transmissibility_closed_form(r: float, zeta: float) -> None:
     # Source: Chopra, Dynamics of Structures, eq. 3.5.3: T = sqrt(1+(2 zeta r)^2) / sqrt((1-r^2)^2+(2 zeta r)^2)
     expected = math.sqrt(1 + (2 * zeta * r) ** 2) / math.sqrt((1 - r**2) ** 2 + (2 * zeta * r) ** 2)
-    assert harmonic.transmissibility(r, zeta) == pytest.approx(expected)
+    assert forced.transmissibility(r, zeta) == pytest.approx(expected)
 
 
 @pytest.mark.parametrize("target", [0.5, 0.1, 0.02])
 @pytest.mark.parametrize("zeta", [0.0, 0.01, 0.05, 0.2, 1.5])
 def test_required_ratio_solves_the_damped_transmissibility(target: float, zeta: float) -> None:
     # Oracle: scipy.optimize.brentq on T(r) - target above r = sqrt(2)
-    expected = brentq(lambda r: harmonic.transmissibility(r, zeta) - target, math.sqrt(2), 1e4, xtol=1e-14)
-    assert isolation.ratio_for_transmissibility(target, zeta) == pytest.approx(expected, rel=1e-9)
+    expected = brentq(lambda r: forced.transmissibility(r, zeta) - target, math.sqrt(2), 1e4, xtol=1e-14)
+    assert isolate.ratio_for_transmissibility(target, zeta) == pytest.approx(expected, rel=1e-9)
 
 
 def test_undamped_formula() -> None:
     # Source: Chopra, Dynamics of Structures, sec. 3.5: undamped T = 1/(r^2 - 1) above resonance
-    assert isolation.undamped_ratio_for_transmissibility(0.1) == pytest.approx(math.sqrt(11.0))
-    assert isolation.ratio_for_transmissibility(0.1, 0.0) == pytest.approx(math.sqrt(11.0))
+    assert isolate.undamped_ratio_for_transmissibility(0.1) == pytest.approx(math.sqrt(11.0))
+    assert isolate.ratio_for_transmissibility(0.1, 0.0) == pytest.approx(math.sqrt(11.0))
 
 
 def test_damping_demands_softer_mounts() -> None:
     # From memory: Den Hartog, Mechanical Vibrations, ch. 2: above sqrt(2) damping raises T, so a
     # damped mount needs a higher ratio than the undamped formula says
-    assert isolation.ratio_for_transmissibility(0.1, 0.1) > isolation.undamped_ratio_for_transmissibility(0.1)
+    assert isolate.ratio_for_transmissibility(0.1, 0.1) > isolate.undamped_ratio_for_transmissibility(0.1)
 
 
 @pytest.mark.parametrize("zeta", [0.005, 0.02, 0.1, 0.5])
 def test_peak_transmissibility(zeta: float) -> None:
     # Oracle: scipy.optimize.minimize_scalar (bounded) on -T
-    found = minimize_scalar(lambda r: -harmonic.transmissibility(r, zeta), bounds=(0.3, 1.2), method="bounded",
+    found = minimize_scalar(lambda r: -forced.transmissibility(r, zeta), bounds=(0.3, 1.2), method="bounded",
                             options={"xatol": 1e-12})
-    assert isolation.peak_transmissibility_ratio(zeta) == pytest.approx(found.x, abs=1e-5)
-    assert isolation.peak_transmissibility(zeta) == pytest.approx(-found.fun, rel=1e-9)
+    assert isolate.peak_transmissibility_ratio(zeta) == pytest.approx(found.x, abs=1e-5)
+    assert isolate.peak_transmissibility(zeta) == pytest.approx(-found.fun, rel=1e-9)
     # From memory: Rao, Mechanical Vibrations, sec. 9.10: r_peak^2 = (sqrt(1+8 zeta^2) - 1)/(4 zeta^2)
-    assert isolation.peak_transmissibility_ratio(zeta) ** 2 == pytest.approx(
+    assert isolate.peak_transmissibility_ratio(zeta) ** 2 == pytest.approx(
         (math.sqrt(1 + 8 * zeta**2) - 1) / (4 * zeta**2))
 
 
@@ -89,7 +89,7 @@ def test_demo_fan_design_against_the_ode_solver() -> None:
     result = SPEC.evaluate(FAN)
     values = {name: value.si() for name, value in result.values.items()}
     f = 740 / 60
-    ratio = brentq(lambda r: harmonic.transmissibility(r, 0.02) - 0.1, math.sqrt(2), 100, xtol=1e-14)
+    ratio = brentq(lambda r: forced.transmissibility(r, 0.02) - 0.1, math.sqrt(2), 100, xtol=1e-14)
     # Oracle: scipy.optimize.brentq for the frequency ratio giving T = 0.1 at 2 % damping
     assert values["required_natural_frequency"] == pytest.approx(f / ratio, rel=1e-9)
     # Common practice (no source): k = m (2 pi fn)^2, shared equally by the mounts

@@ -6,8 +6,9 @@ import math
 
 import pytest
 
-from calc.kinds import KINDS
-from calc.lookups import (
+from fieldmode.calc.framework.kinds import KINDS
+from fieldmode.calc.framework.units import read
+from fieldmode.calc.typical_values import (
     ACTIVITY_BANDS,
     DAMPING,
     EN1991_LOG_DECREMENTS,
@@ -20,7 +21,6 @@ from calc.lookups import (
     ratio_from_log_decrement,
     table_for,
 )
-from calc.units import read
 
 
 @pytest.mark.parametrize(("material", "gpa"), [

@@ -11,10 +11,10 @@ from hypothesis import strategies as st
 from scipy.integrate import dblquad, solve_bvp
 from scipy.optimize import brentq
 
-from calc import members
-from calc.checks import BY_ID
-from calc.checks.member import ELEMENTS
-from calc.units import STANDARD_GRAVITY, InputError
+from fieldmode.calc.checks import BY_ID
+from fieldmode.calc.checks.member import ELEMENTS
+from fieldmode.calc.framework.units import STANDARD_GRAVITY, InputError
+from fieldmode.calc.physics import member
 
 SPEC = BY_ID["member"]
 
@@ -75,7 +75,7 @@ def _euler_bernoulli_deflection(left: str, right: str, load_at: float) -> float:
 def test_beam_midspan_stiffness_against_beam_theory(support: str, left: str, right: str) -> None:
     # Oracle: scipy.integrate.solve_bvp on EI y'''' = 0 with a unit point load at midspan
     expected = 1.0 / _euler_bernoulli_deflection(left, right, 0.5)
-    assert members.beam_stiffness(1.0, 1.0, 1.0, support) == pytest.approx(expected, rel=1e-6)
+    assert member.beam_stiffness(1.0, 1.0, 1.0, support) == pytest.approx(expected, rel=1e-6)
 
 
 @pytest.mark.parametrize(("support", "top"), [
@@ -85,7 +85,7 @@ def test_column_lateral_stiffness_against_beam_theory(support: str, top: str) ->
     # Oracle: scipy.integrate.solve_bvp on EI y'''' = 0, fixed base, unit shear at the top
     # (a pinned top of a column under a rigid beam carries no moment, like a free top)
     expected = 1.0 / _euler_bernoulli_deflection("fixed", top, 1.0)
-    assert members.column_stiffness(1.0, 1.0, 1.0, support) == pytest.approx(expected, rel=1e-6)
+    assert member.column_stiffness(1.0, 1.0, 1.0, support) == pytest.approx(expected, rel=1e-6)
 
 
 @pytest.mark.parametrize(("support", "coefficient"), [
@@ -93,7 +93,7 @@ def test_column_lateral_stiffness_against_beam_theory(support: str, top: str) ->
 ])
 def test_beam_stiffness_handbook_coefficients(support: str, coefficient: float) -> None:
     # From memory: AISC Steel Construction Manual Table 3-23, cases 7, 16 and 13 (PL^3/48EI, PL^3/192EI, 7PL^3/768EI)
-    assert members.beam_stiffness(E, I, L, support) == pytest.approx(coefficient * E * I / L**3)
+    assert member.beam_stiffness(E, I, L, support) == pytest.approx(coefficient * E * I / L**3)
 
 
 def test_columns_of_a_storey() -> None:
@@ -139,15 +139,15 @@ def _second_moment_by_integration(outer: float, inner: float = 0.0) -> float:
 
 
 def test_circle_second_moments_against_integration() -> None:
-    assert members.circle_second_moment(0.2) == pytest.approx(_second_moment_by_integration(0.1), rel=1e-8)
-    assert members.circle_second_moment(0.2, 0.012) == pytest.approx(
+    assert member.circle_second_moment(0.2) == pytest.approx(_second_moment_by_integration(0.1), rel=1e-8)
+    assert member.circle_second_moment(0.2, 0.012) == pytest.approx(
         _second_moment_by_integration(0.1, 0.088), rel=1e-8)
 
 
 def test_rectangle_second_moment_against_integration() -> None:
     # Oracle: scipy.integrate.dblquad of y^2 over a 100 x 300 rectangle, y across the depth
     value, _ = dblquad(lambda y, x: y**2, -0.05, 0.05, -0.15, 0.15, epsabs=1e-16)
-    assert members.rectangle_second_moment(0.1, 0.3) == pytest.approx(value, rel=1e-8)
+    assert member.rectangle_second_moment(0.1, 0.3) == pytest.approx(value, rel=1e-8)
 
 
 def test_section_fields_give_handbook_hollow_section() -> None:
@@ -176,7 +176,7 @@ def test_material_presets_and_their_source_are_shown(material: str, gpa: float) 
 def test_simply_supported_beam_frequency_closed_form() -> None:
     # Source: Clough & Penzien, Dynamics of Structures, ch. 18; Blevins Table 8-1: f1 = pi/(2 L^2) sqrt(EI/m)
     expected = math.pi / (2 * L**2) * math.sqrt(E * I / M)
-    assert members.beam_frequency(E, I, L, M) == pytest.approx(expected)
+    assert member.beam_frequency(E, I, L, M) == pytest.approx(expected)
     result = SPEC.evaluate(BEAM)
     assert result.values["natural_frequency"].si() == pytest.approx(expected)
     assert result.values["mass"].si() == pytest.approx(M * L)
@@ -190,7 +190,7 @@ def test_beam_frequency_coefficients_from_the_frequency_equation(support, equati
     # Oracle: scipy.optimize.brentq on the textbook frequency equation (Blevins, Table 8-1)
     beta_l = brentq(equation, *bracket, xtol=1e-14)
     expected = beta_l**2 / (2 * math.pi * L**2) * math.sqrt(E * I / M)
-    assert members.beam_frequency(E, I, L, M, support) == pytest.approx(expected, rel=1e-9)
+    assert member.beam_frequency(E, I, L, M, support) == pytest.approx(expected, rel=1e-9)
 
 
 def test_rule_of_thumb_within_two_percent_of_exact() -> None:
@@ -202,7 +202,7 @@ def test_rule_of_thumb_within_two_percent_of_exact() -> None:
     # From memory: SCI P354 / P076: f ~ 18 / sqrt(delta in mm), within 2 % of the exact beam frequency
     assert result.values["rule_of_thumb_frequency"].si() == pytest.approx(exact, rel=0.02)
     # From memory: SCI P076: 17.75 / sqrt(delta_mm) is exact for a simply supported uniform beam
-    assert members.frequency_rule_of_thumb(delta, 17.75) == pytest.approx(exact, rel=1e-3)
+    assert member.frequency_rule_of_thumb(delta, 17.75) == pytest.approx(exact, rel=1e-3)
     # Source: AISC Design Guide 11 eq. 3-3: f = 0.18 sqrt(g / delta)
     assert 0.18 * math.sqrt(STANDARD_GRAVITY / delta) == pytest.approx(exact, rel=0.02)
 
@@ -210,14 +210,14 @@ def test_rule_of_thumb_within_two_percent_of_exact() -> None:
 @pytest.mark.parametrize("support", ["fixed-fixed", "fixed-pinned"])
 def test_rule_of_thumb_holds_for_other_end_conditions(support: str) -> None:
     # From memory: SCI P354: the 18/sqrt(delta) rule covers the usual support cases within a few per cent
-    frequency = members.beam_frequency(E, I, L, M, support)
-    delta = members.self_weight_deflection(E, I, L, M, support)
-    assert members.frequency_rule_of_thumb(delta) == pytest.approx(frequency, rel=0.02)
+    frequency = member.beam_frequency(E, I, L, M, support)
+    delta = member.self_weight_deflection(E, I, L, M, support)
+    assert member.frequency_rule_of_thumb(delta) == pytest.approx(frequency, rel=0.02)
 
 
 def test_fixed_pinned_largest_deflection() -> None:
     # From memory: AISC Steel Construction Manual Table 3-23 case 12: propped cantilever w L^4 / (185 EI)
-    assert members.self_weight_deflection(E, I, L, M, "fixed-pinned") == pytest.approx(
+    assert member.self_weight_deflection(E, I, L, M, "fixed-pinned") == pytest.approx(
         M * STANDARD_GRAVITY * L**4 / (185 * E * I), rel=3e-3)
 
 

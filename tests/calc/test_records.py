@@ -10,9 +10,9 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from calc import records
-from calc.records import Record, RecordError, read_record
-from calc.units import STANDARD_GRAVITY, InputError
+from fieldmode.calc.framework.units import STANDARD_GRAVITY, InputError
+from fieldmode.calc.records import read
+from fieldmode.calc.records.read import Record, RecordError, read_record
 
 FS = 200.0
 TIME = np.arange(400) / FS
@@ -75,12 +75,12 @@ def test_columns_by_name_and_number_and_time_in_ms(tmp_path: Path) -> None:
     by_name = read_record(path, signal_column="ay")
     # Source: NIST SP 811 (2008), standard gravity 9.80665 m/s^2 exactly
     check_record(by_name, STANDARD_GRAVITY)
-    assert by_name.quantity == "acceleration" and by_name.channel_name == "ay [g]"
+    assert by_name.kind == "acceleration" and by_name.channel_name == "ay [g]"
     assert "time read in ms" in by_name.notes
     by_number = read_record(path, signal_column=2, signal_unit="mm/s")
     check_record(by_number, -1e-3)
-    assert by_number.quantity == "velocity"
-    assert read_record(path, time_column="1", signal_column="3", signal_unit="mm").quantity == "length"
+    assert by_number.kind == "velocity"
+    assert read_record(path, time_column="1", signal_column="3", signal_unit="mm").kind == "length"
     assert read_record(path).channel_name == "ax"
 
 
@@ -179,11 +179,11 @@ def test_missing_folder_and_unreadable_paths(tmp_path: Path) -> None:
 
 def test_size_and_sample_limits_are_stated(tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> None:
     path = write(tmp_path, "t,a\n" + rows())
-    monkeypatch.setattr(records, "MAX_FILE_BYTES", 1024 * 1024 // 512)
+    monkeypatch.setattr(read, "MAX_FILE_BYTES", 1024 * 1024 // 512)
     with pytest.raises(RecordError, match="larger than the 0 MiB limit|larger than"):
         read_record(path)
-    monkeypatch.setattr(records, "MAX_FILE_BYTES", 2**30)
-    monkeypatch.setattr(records, "MAX_SAMPLES", 100)
+    monkeypatch.setattr(read, "MAX_FILE_BYTES", 2**30)
+    monkeypatch.setattr(read, "MAX_SAMPLES", 100)
     with pytest.raises(RecordError, match="more than 100 samples"):
         read_record(path)
 

@@ -11,11 +11,11 @@ import pytest
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from calc import groundmotion
-from calc import spectrum as core
-from calc.checks import BY_ID
-from calc.result import SEISMIC_CAUTION
-from calc.units import InputError
+from fieldmode.calc.checks import BY_ID
+from fieldmode.calc.framework.result import SEISMIC_CAUTION
+from fieldmode.calc.framework.units import InputError
+from fieldmode.calc.physics import spectrum as core
+from fieldmode.calc.records import accelerogram
 
 G0 = 9.80665  # Source: NIST SP 811 (2008), standard gravity
 
@@ -51,13 +51,13 @@ def test_design_spectrum_demo() -> None:
     # Source: EN 1998-1:2004 3.2.2.2, eq. 3.3, Table 3.2 ground C: plateau ag S eta 2.5 (TB <= 0.53 s <= TC)
     se = ag * 1.15 * 2.5
     assert si(result, "spectral_acceleration") == pytest.approx(se)
-    assert result.values["branch"].quantity == "constant acceleration"
+    assert result.values["branch"].magnitude == "constant acceleration"
     # Source: EN 1998-1:2004 3.2.2.4, eq. 3.7
     assert si(result, "spectral_displacement") == pytest.approx(se * (0.53 / (2 * math.pi)) ** 2)
     # Source: EN 1998-1:2004 3.2.2.5, eq. 3.14 with q = 4
     assert si(result, "design_spectral_acceleration") == pytest.approx(ag * 1.15 * 2.5 / 4)
     assert si(result, "base_shear") == pytest.approx(850e3 * se)
-    assert result.values["parameter_set"].quantity == "Table 3.2"
+    assert result.values["parameter_set"].magnitude == "Table 3.2"
     assert any("S 1.15, TB 0.2 s, TC 0.6 s, TD 2 s" in flag.text for flag in result.flags)
     assert result.caution == SEISMIC_CAUTION
     assert set(result.series) >= {"period", "spectral_acceleration", "design_spectral_acceleration"}
@@ -71,8 +71,8 @@ def test_design_spectrum_overrides_and_units() -> None:
     eta = math.sqrt(10 / 15)  # Source: EN 1998-1:2004 3.2.2.2(3), eq. 3.6
     # Source: EN 1998-1:2004 3.2.2.2, eq. 3.4; Table 3.3 ground B TD 1.2 s; ag = gamma_I agR (3.2.1(3))
     assert si(result, "spectral_acceleration") == pytest.approx(2.4 * 1.3 * eta * 2.5 * 0.3 / 0.8)
-    assert result.values["branch"].quantity == "constant velocity"
-    assert result.values["parameter_set"].quantity == "user S, TC"
+    assert result.values["branch"].magnitude == "constant velocity"
+    assert result.values["parameter_set"].magnitude == "user S, TC"
 
 
 @pytest.mark.parametrize(("texts", "field"), [
@@ -105,7 +105,7 @@ def test_spectrum_check_matches_core(tmp_path: Path) -> None:
     acc_g = 0.1 * rng.standard_normal(800)
     path = write_record(tmp_path / "motion.csv", acc_g, dt)
     result = SPECTRUM.evaluate({"file": str(path), "signal_unit": "g", "period": "0.5 s", "damping": "3 %"})
-    corrected = groundmotion.baseline_corrected(np.round(acc_g, 7) * G0, dt)
+    corrected = accelerogram.baseline_corrected(np.round(acc_g, 7) * G0, dt)
     single = core.response_spectrum(corrected, dt, np.array([0.5]), 0.03)
     assert si(result, "psa") == pytest.approx(float(single.psa[0]), rel=1e-9)
     assert si(result, "pga") == pytest.approx(np.abs(corrected).max(), rel=1e-9)
@@ -217,6 +217,6 @@ def test_spectrum_signal_unit_from_header_or_asked(tmp_path: Path) -> None:
 
 
 def test_default_grid_matches_the_core() -> None:
-    from calc.checks.spectrum import DEFAULT_GRID
+    from fieldmode.calc.checks.spectrum import DEFAULT_GRID
 
     assert DEFAULT_GRID == core.DEFAULT_GRID

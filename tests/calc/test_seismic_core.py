@@ -7,7 +7,7 @@ import math
 import numpy as np
 import pytest
 
-from calc import seismic
+from fieldmode.calc.physics import design_spectrum, period
 
 G0 = 9.80665  # Source: NIST SP 811 (2008), standard gravity
 
@@ -45,7 +45,7 @@ def clause_sd(t: float, ag: float, s: float, tb: float, tc: float, td: float, q:
 
 @pytest.mark.parametrize(("kind", "ground", "row"), CASES)
 def test_recommended_tables(kind: str, ground: str, row: tuple[float, float, float, float]) -> None:
-    shape = seismic.recommended_shape(kind, ground)
+    shape = design_spectrum.recommended_shape(kind, ground)
     # Source: EN 1998-1:2004 3.2.2.2, Table 3.2 / Table 3.3
     assert (shape.soil_factor, shape.tb, shape.tc, shape.td) == row
 
@@ -57,9 +57,9 @@ def test_elastic_spectrum_boundaries_and_branches(kind: str, ground: str, row: t
     s, tb, tc, td = row
     ag = 0.16 * G0
     eta = max(math.sqrt(10 / (5 + 100 * damping)), 0.55)  # Source: EN 1998-1:2004 3.2.2.2(3), eq. 3.6
-    shape = seismic.recommended_shape(kind, ground)
+    shape = design_spectrum.recommended_shape(kind, ground)
     periods = [0.0, tb / 2, tb, (tb + tc) / 2, tc, (tc + td) / 2, td, (td + 4.0) / 2, 4.0]
-    got = seismic.elastic_spectrum(np.array(periods), ag, shape, seismic.damping_correction(damping))
+    got = design_spectrum.elastic_spectrum(np.array(periods), ag, shape, design_spectrum.damping_correction(damping))
     expected = [clause_se(t, ag, s, tb, tc, td, eta) for t in periods]
     # Source: EN 1998-1:2004 3.2.2.2, eq. 3.2-3.5, Table 3.2 / 3.3
     np.testing.assert_allclose(got, expected, rtol=1e-12)
@@ -76,7 +76,7 @@ def test_elastic_spectrum_boundaries_and_branches(kind: str, ground: str, row: t
     (0.50, 0.55),                      # Source: EN 1998-1:2004 3.2.2.2(3): eta >= 0.55
 ])
 def test_damping_correction(damping: float, eta: float) -> None:
-    assert seismic.damping_correction(damping) == pytest.approx(eta, rel=1e-4)
+    assert design_spectrum.damping_correction(damping) == pytest.approx(eta, rel=1e-4)
 
 
 @pytest.mark.parametrize("q", [1.0, 1.5, 4.0, 6.5])
@@ -84,9 +84,9 @@ def test_damping_correction(damping: float, eta: float) -> None:
 def test_design_spectrum(kind: str, ground: str, row: tuple[float, ...], q: float) -> None:
     s, tb, tc, td = row
     ag = 0.25 * G0
-    shape = seismic.recommended_shape(kind, ground)
+    shape = design_spectrum.recommended_shape(kind, ground)
     periods = [0.0, tb / 2, tb, (tb + tc) / 2, tc, (tc + td) / 2, td, 3.0, 4.0]
-    got = seismic.design_spectrum(np.array(periods), ag, shape, q)
+    got = design_spectrum.design_spectrum(np.array(periods), ag, shape, q)
     # Source: EN 1998-1:2004 3.2.2.5, eq. 3.13-3.16, Table 3.2 / 3.3, beta = 0.2
     np.testing.assert_allclose(got, [clause_sd(t, ag, s, tb, tc, td, q) for t in periods], rtol=1e-12)
     # Source: EN 1998-1:2004 3.2.2.5(4): never below beta ag
@@ -94,18 +94,18 @@ def test_design_spectrum(kind: str, ground: str, row: tuple[float, ...], q: floa
 
 
 def test_design_spectrum_lower_bound_governs_long_periods() -> None:
-    shape = seismic.recommended_shape("1", "A")
+    shape = design_spectrum.recommended_shape("1", "A")
     ag = 0.2 * G0
     # Source: EN 1998-1:2004 3.2.2.5(4), eq. 3.16: ag S 2.5/q TC TD / T^2 = 0.03125 ag < 0.2 ag at T = 4 s, q = 4
-    assert float(seismic.design_spectrum(4.0, ag, shape, 4.0)) == pytest.approx(0.2 * ag)
+    assert float(design_spectrum.design_spectrum(4.0, ag, shape, 4.0)) == pytest.approx(0.2 * ag)
 
 
 def test_demo_site_plateau() -> None:
-    shape = seismic.recommended_shape("1", "C")
+    shape = design_spectrum.recommended_shape("1", "C")
     # Source: EN 1998-1:2004 3.2.2.2, eq. 3.3, Table 3.2 ground C: 0.16 g x 1.15 x 2.5 = 4.511 m/s^2
-    assert float(seismic.elastic_spectrum(0.4, 0.16 * G0, shape)) == pytest.approx(4.5110, abs=1e-4)
+    assert float(design_spectrum.elastic_spectrum(0.4, 0.16 * G0, shape)) == pytest.approx(4.5110, abs=1e-4)
     # Source: EN 1998-1:2004 3.2.2.4, eq. 3.7: SDe = Se (T / 2 pi)^2
-    assert float(seismic.spectral_displacement(4.5110, 0.53)) == pytest.approx(4.5110 * (0.53 / (2 * math.pi)) ** 2)
+    assert float(design_spectrum.spectral_displacement(4.5110, 0.53)) == pytest.approx(4.5110 * (0.53 / (2 * math.pi)) ** 2)
 
 
 @pytest.mark.parametrize(("period", "expected"), [
@@ -114,7 +114,7 @@ def test_demo_site_plateau() -> None:
 ])
 def test_branch_names(period: float, expected: str) -> None:
     # Source: EN 1998-1:2004 3.2.2.2, eq. 3.2-3.5 ranges, Table 3.2 ground C (TB 0.2, TC 0.6, TD 2.0)
-    assert seismic.branch(period, seismic.recommended_shape("1", "C")) == expected
+    assert design_spectrum.branch(period, design_spectrum.recommended_shape("1", "C")) == expected
 
 
 @pytest.mark.parametrize(("system", "ct"), [
@@ -125,12 +125,12 @@ def test_branch_names(period: float, expected: str) -> None:
 ])
 @pytest.mark.parametrize("height", [3.0, 11.5, 40.0])
 def test_period_en1998(system: str, ct: float, height: float) -> None:
-    assert seismic.period_en1998(height, system) == pytest.approx(ct * height ** 0.75, rel=1e-12)
+    assert period.en1998(height, system) == pytest.approx(ct * height ** 0.75, rel=1e-12)
 
 
 def test_period_en1998_demo_annex() -> None:
     # Source: EN 1998-1:2004 4.3.3.2.2(3): 0.085 x 11.5^0.75 = 0.5308 s (hand calculation)
-    assert seismic.period_en1998(11.5, "steel-moment-frame") == pytest.approx(0.5308, abs=1e-4)
+    assert period.en1998(11.5, "steel-moment-frame") == pytest.approx(0.5308, abs=1e-4)
 
 
 @pytest.mark.parametrize(("system", "ct_us", "x"), [
@@ -143,4 +143,4 @@ def test_period_en1998_demo_annex() -> None:
 def test_period_asce7_matches_customary_units(system: str, ct_us: float, x: float, height: float) -> None:
     feet = height / 0.3048  # Source: NIST SP 811 (2008), Appendix B: 1 ft = 0.3048 m
     # Source: ASCE 7-16 eq. 12.8-7; the SI Ct of Table 12.8-2 are rounded to 3 figures
-    assert seismic.period_asce7(height, system) == pytest.approx(ct_us * feet**x, rel=2e-3)
+    assert period.asce7(height, system) == pytest.approx(ct_us * feet**x, rel=2e-3)

@@ -9,10 +9,10 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from calc.checks import SPECS
-from calc.kinds import KINDS
-from calc.spec import CheckSpec
-from calc.units import InputError
+from fieldmode.calc.checks import SPECS
+from fieldmode.calc.framework.kinds import KINDS
+from fieldmode.calc.framework.spec import CheckSpec
+from fieldmode.calc.framework.units import InputError
 
 HOSTILE = st.one_of(
     st.text(max_size=40),
@@ -36,7 +36,7 @@ def test_fields_are_well_formed(spec: CheckSpec) -> None:
     for field in spec.fields:
         assert field.kind in KINDS or field.kind in ("choice", "path", "text"), field.name
         assert not field.choices or field.kind == "choice"
-        assert field.shown_label
+        assert field.label_with_unit
 
 
 @pytest.mark.parametrize("spec", SPECS, ids=lambda spec: spec.id)

@@ -12,8 +12,8 @@ from scipy import signal
 from scipy.integrate import cumulative_trapezoid, solve_ivp
 from scipy.linalg import expm
 
-from calc import groundmotion
-from calc import spectrum as core
+from fieldmode.calc.physics import spectrum as core
+from fieldmode.calc.records import accelerogram
 
 
 def sample_record(seconds: float = 6.0, dt: float = 0.01, seed: int = 7) -> np.ndarray:
@@ -136,8 +136,8 @@ def test_free_vibration_after_the_record_counts() -> None:
 def test_spectrum_long_and_short_limits() -> None:
     dt = 0.005
     acc = sample_record(seconds=8.0, dt=dt, seed=11)
-    acc = groundmotion.baseline_corrected(acc, dt)
-    pga, _, pgd = groundmotion.ground_peaks(acc, dt)
+    acc = accelerogram.baseline_corrected(acc, dt)
+    pga, _, pgd = accelerogram.ground_peaks(acc, dt)
     rigid = core.response_spectrum(acc, dt, np.array([0.002]), 0.05)
     # Common practice (no source): a very stiff mass moves with the ground, psa -> pga
     assert rigid.total_acceleration[0] == pytest.approx(pga, rel=0.02)
@@ -147,7 +147,7 @@ def test_spectrum_long_and_short_limits() -> None:
 def test_ground_peaks_against_cumulative_trapezoid() -> None:
     dt = 0.002
     acc = sample_record(seconds=5.0, dt=dt, seed=5)
-    pga, pgv, pgd = groundmotion.ground_peaks(acc, dt)
+    pga, pgv, pgd = accelerogram.ground_peaks(acc, dt)
     velocity = cumulative_trapezoid(acc, dx=dt, initial=0.0)
     displacement = cumulative_trapezoid(velocity, dx=dt, initial=0.0)
     # Oracle: scipy.integrate.cumulative_trapezoid (exact for velocity, O(dt^2) for displacement)
@@ -159,7 +159,7 @@ def test_ground_peaks_against_cumulative_trapezoid() -> None:
 def test_ground_peaks_of_a_sine() -> None:
     dt, omega, amplitude = 0.001, 2 * math.pi, 2.0
     t = np.arange(0, 2.0 + dt / 2, dt)
-    _, pgv, pgd = groundmotion.ground_peaks(amplitude * np.sin(omega * t), dt)
+    _, pgv, pgd = accelerogram.ground_peaks(amplitude * np.sin(omega * t), dt)
     # From memory: calculus: v = A/w (1 - cos w t), peak 2A/w; d = A/w (t - sin(w t)/w), at t = 2 s: 2A/w
     assert pgv == pytest.approx(2 * amplitude / omega, rel=1e-5)
     assert pgd == pytest.approx(amplitude / omega * 2.0, rel=1e-5)
@@ -170,8 +170,8 @@ def test_baseline_correction_removes_a_drift() -> None:
     t = np.arange(2001) * dt
     line = 0.03 - 0.002 * t
     # Oracle: numpy.polynomial fit; a straight line in acceleration is a quadratic velocity through zero
-    assert np.abs(groundmotion.baseline_corrected(line, dt)).max() < 1e-12
-    corrected = groundmotion.baseline_corrected(sample_record(seconds=20.0, dt=dt) + line, dt)
+    assert np.abs(accelerogram.baseline_corrected(line, dt)).max() < 1e-12
+    corrected = accelerogram.baseline_corrected(sample_record(seconds=20.0, dt=dt) + line, dt)
     velocity = cumulative_trapezoid(corrected, dx=dt, initial=0.0)
     fit, *_ = np.linalg.lstsq(np.stack([t, t**2], axis=1), velocity, rcond=None)
     np.testing.assert_allclose(fit, 0.0, atol=1e-12)

@@ -9,7 +9,7 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from calc import storeys
+from fieldmode.calc.physics import storeys
 
 
 @pytest.mark.parametrize("count", [1, 2, 3, 5, 12])

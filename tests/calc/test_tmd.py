@@ -7,7 +7,7 @@ import math
 import numpy as np
 import pytest
 
-from calc import tmd
+from fieldmode.calc.physics import tmd
 
 MASS_RATIOS = [0.005, 0.01, 0.02, 0.05, 0.1, 0.2, 0.5]
 

@@ -9,8 +9,8 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from calc.kinds import KINDS
-from calc.units import InputError, convert, format_number, format_quantity, parse, read
+from fieldmode.calc.framework.kinds import KINDS
+from fieldmode.calc.framework.units import InputError, convert, format_number, format_value, read
 
 # Source: NIST SP 811 (2008), Appendix B.8 and B.9 (exact or defining values)
 NIST_FACTORS = [
@@ -43,7 +43,7 @@ def test_rotational_speed_is_cycles_per_time(text: str, hz: float) -> None:
 
 def test_1450_rpm_is_24_17_hz_not_151_8() -> None:
     # Common practice (no source): 1450 rpm / 60 = 24.17 Hz; pint's own rpm would give 2 pi times that.
-    assert format_quantity(parse("1450 rpm", "frequency"), "frequency") == "24.17 Hz"
+    assert format_value(read("1450 rpm", "frequency").si, "frequency") == "24.17 Hz"
 
 
 def test_angular_and_cyclic_frequency_convert_with_two_pi() -> None:
@@ -167,9 +167,8 @@ def test_four_significant_figures(value: float, text: str) -> None:
 
 
 def test_us_customary_display() -> None:
-    stiffness = parse("45 kip/in", "stiffness")
-    assert format_quantity(stiffness, "stiffness", "us") == "45.00 kip/in"
-    assert format_quantity(parse("0.25 g", "acceleration"), "acceleration", "us") == "0.2500 g"
+    assert format_value(read("45 kip/in", "stiffness").si, "stiffness", "us") == "45.00 kip/in"
+    assert format_value(read("0.25 g", "acceleration").si, "acceleration", "us") == "0.2500 g"
 
 
 def test_convert_command_core() -> None:

@@ -7,7 +7,7 @@ from pathlib import Path
 
 import pytest
 
-from tui.field_app import FieldApp
+from fieldmode.tui.app import FieldmodeApp
 
 
 @pytest.fixture
@@ -16,15 +16,15 @@ def state(tmp_path: Path) -> Path:
 
 
 @pytest.fixture
-def make_app(state: Path, tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> Callable[..., FieldApp]:
-    """FieldApp with its session folder in tmp and the current folder in tmp (records go there)."""
+def make_app(state: Path, tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> Callable[..., FieldmodeApp]:
+    """FieldmodeApp with its session folder in tmp and the current folder in tmp (records go there)."""
     work = tmp_path / "work"
     work.mkdir()
     monkeypatch.chdir(work)
 
-    def factory(**kwargs: object) -> FieldApp:
+    def factory(**kwargs: object) -> FieldmodeApp:
         kwargs.setdefault("state_folder", state)
         kwargs.setdefault("ascii_borders", False)
-        return FieldApp(**kwargs)  # type: ignore[arg-type]
+        return FieldmodeApp(**kwargs)  # type: ignore[arg-type]
 
     return factory

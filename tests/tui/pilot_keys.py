@@ -10,11 +10,11 @@ from textual.pilot import Pilot
 from textual.widgets import Input
 from textual.worker import WorkerCancelled
 
-from tui.field_app import FieldApp
-from tui.widgets.check_view import CheckView
+from fieldmode.tui.app import FieldmodeApp
+from fieldmode.tui.widgets.check_view import CheckView
 
 
-async def settle(app: FieldApp, pilot: Pilot) -> CheckView:
+async def settle(app: FieldmodeApp, pilot: Pilot) -> CheckView:
     """Wait until the check on screen shows the outcome of its current texts; return its pane."""
     for _ in range(200):
         with contextlib.suppress(WorkerCancelled):  # a newer keystroke replaced that computation
@@ -26,7 +26,7 @@ async def settle(app: FieldApp, pilot: Pilot) -> CheckView:
     raise AssertionError("the check never caught up with its inputs")
 
 
-async def focus_field(app: FieldApp, pilot: Pilot, name: str) -> Input:
+async def focus_field(app: FieldmodeApp, pilot: Pilot, name: str) -> Input:
     """Move to a field with Tab alone; return its text box."""
     view = app.current_view
     target = view.row(name).input
@@ -37,7 +37,7 @@ async def focus_field(app: FieldApp, pilot: Pilot, name: str) -> Input:
     raise AssertionError(f"Tab never reached {name}")
 
 
-async def type_into(app: FieldApp, pilot: Pilot, name: str, text: str) -> CheckView:
+async def type_into(app: FieldmodeApp, pilot: Pilot, name: str, text: str) -> CheckView:
     """Clear a field and type ``text`` key by key; wait for the results."""
     await focus_field(app, pilot, name)
     await pilot.press("home", "ctrl+k", *keys_for(text))
@@ -51,7 +51,7 @@ def keys_for(text: str) -> list[str]:
     return [names.get(char, char) for char in text]
 
 
-def screen_text(app: FieldApp) -> str:
+def screen_text(app: FieldmodeApp) -> str:
     """What the terminal shows, as plain text."""
     width, height = app.size
     console = Console(width=width, height=height, file=io.StringIO(), force_terminal=True, color_system=None,

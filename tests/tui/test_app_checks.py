@@ -8,10 +8,11 @@ import math
 import pytest
 from pilot_keys import flags_text, focus_field, note_of, screen_text, settle, type_into
 
-from calc.checks import SPECS
-from calc.lookups import DAMPING
-from tui.widgets.field_row import FieldRow
-from tui.widgets.lookup_screen import LookupScreen
+from fieldmode.calc.checks import SPECS
+from fieldmode.calc.typical_values import DAMPING
+from fieldmode.tui.present import value_text
+from fieldmode.tui.widgets.field_row import FieldRow
+from fieldmode.tui.widgets.lookup_screen import LookupScreen
 
 SIZE = (80, 24)
 G0 = 9.80665  # Source: NIST SP 811 (2008), standard gravity
@@ -77,7 +78,7 @@ def test_single_mass_typed_as_a_weight_against_the_closed_form(make_app):
             expected = math.sqrt(8e6 / (117.7e3 / G0)) / (2 * math.pi)
             assert "read as weight" in note_of(view, "mass")
             assert f"{expected:.3f}"[:4] in screen_text(app)
-            value = view.outcome.result.values["natural_frequency"].quantity.to("Hz").magnitude
+            value = view.outcome.result.values["natural_frequency"].magnitude
             assert value == pytest.approx(expected, rel=1e-9)
 
     asyncio.run(scenario())
@@ -117,7 +118,7 @@ def test_units_key_switches_results_between_si_and_us(make_app):
             assert "units US" in shown and "kip/in" in shown and "lb" in shown
             # Source: NIST SP 811 B.8: 1 lbf = 4.4482216152605 N, 1 in = 0.0254 m
             kip_per_in = 42e6 * 0.0254 / 4448.2216152605
-            assert view.outcome.result.values["stiffness"].shown("us") == f"{kip_per_in:.1f} kip/in"
+            assert value_text(view.outcome.result.values["stiffness"], "us") == f"{kip_per_in:.1f} kip/in"
             await pilot.press("f5")
             await settle(app, pilot)
             assert "units SI" in screen_text(app)
@@ -147,7 +148,7 @@ def test_damping_filled_from_the_lookup_table(make_app):
             zeta = 0.05 / math.sqrt(4 * math.pi**2 + 0.05**2)
             assert view.row("damping").input.value == f"{100 * zeta:.3g} %"
             assert app.focused is view.row("damping").input
-            assert view.outcome.result.values["damping_ratio"].quantity.magnitude == pytest.approx(zeta, rel=1e-3)
+            assert view.outcome.result.values["damping_ratio"].magnitude == pytest.approx(zeta, rel=1e-3)
             await pilot.press("f7")
             await pilot.press("escape")
             view = await settle(app, pilot)
@@ -162,9 +163,9 @@ def test_chart_key_cycles_panels_and_back_to_results(make_app):
         async with app.run_test(size=SIZE) as pilot:
             for _ in SPECS:
                 view = await settle(app, pilot)
-                from tui.charts import CHARTS
+                from fieldmode.tui.charts import panels_of
 
-                panels = len(CHARTS.get(view.spec.id, ())) or 1
+                panels = len(panels_of(view.spec.id)) or 1
                 for panel in range(panels):
                     await pilot.press("f6")
                     await settle(app, pilot)

@@ -7,8 +7,8 @@ import asyncio
 from pilot_keys import focus_field, settle
 from textual import events
 
-from calc.checks import SPECS
-from calc.lookups import DAMPING
+from fieldmode.calc.checks import SPECS
+from fieldmode.calc.typical_values import DAMPING
 
 SIZE = (80, 24)
 

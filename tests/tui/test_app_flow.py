@@ -12,11 +12,11 @@ import signal
 import pytest
 from pilot_keys import focus_field, keys_for, note_of, screen_text, settle, type_into
 
-from calc.checks import SPECS, sdof
-from tui.session import parse_session
-from tui.widgets.confirm_screen import ConfirmScreen
-from tui.widgets.export_screen import ExportScreen
-from tui.workspace import value_text
+from fieldmode.calc.checks import SPECS, sdof
+from fieldmode.tui.present import field_text
+from fieldmode.tui.session import parse_session
+from fieldmode.tui.widgets.confirm_screen import ConfirmScreen
+from fieldmode.tui.widgets.export_screen import ExportScreen
 
 SIZE = (80, 24)
 TWIN = dataclasses.replace(sdof.SPEC, id="sdof-b", title="Second mass", sends={"stiffness": "stiffness"})
@@ -49,7 +49,7 @@ def test_stiffness_sent_to_another_check_replaces_its_alternative(make_app):
             assert view.outcome.errors == {}
             # Source: Chopra, Dynamics of Structures, eq. 2.1.4: f_n = (1 / 2 pi) sqrt(k / m)
             expected = math.sqrt(12.5e6 / 9600) / (2 * math.pi)
-            assert view.outcome.result.values["natural_frequency"].quantity.magnitude == pytest.approx(expected)
+            assert view.outcome.result.values["natural_frequency"].magnitude == pytest.approx(expected)
             await pilot.press("f8")
             assert "sdof has no results to send" in app.messages[-1]
 
@@ -70,7 +70,7 @@ def test_every_check_that_sends_fills_every_check_with_the_field(make_app, spec)
             await pilot.pause()
             for value_name, field_name in spec.sends.items():
                 value = result.values[value_name]
-                text = value_text(value.quantity, value.kind, "si")
+                text = field_text(value.magnitude, value.kind, "si")
                 targets = [other for other in SPECS
                            if other.id != spec.id and any(f.name == field_name for f in other.fields)]
                 for other in targets:

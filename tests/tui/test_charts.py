@@ -6,9 +6,9 @@ import numpy as np
 import plotext
 import pytest
 
-from calc.checks import BY_ID
-from tui.charts import CHARTS
-from tui.charts.common import OPERATING_MARKER, downsample
+from fieldmode.calc.checks import BY_ID
+from fieldmode.tui.charts import panels_of
+from fieldmode.tui.charts.common import OPERATING_MARKER, downsample
 
 CASES = [
     ("sdof", {}),
@@ -35,7 +35,7 @@ def _canvas(text: str) -> list[str]:
 def test_each_panel_draws_with_its_marker(check: str, change: dict[str, str], system: str) -> None:
     spec = BY_ID[check]
     result = spec.evaluate({**spec.demo_texts(), **change})
-    for draw in CHARTS[check]:
+    for draw in panels_of(check):
         plotext.clf()
         plotext.plotsize(70, 18)
         draw(plotext, result, system)
@@ -48,13 +48,13 @@ def test_free_response_is_shown_in_the_chosen_units() -> None:
     for system, unit in (("si", "mm"), ("us", "in")):
         plotext.clf()
         plotext.plotsize(70, 18)
-        CHARTS["sdof"][0](plotext, result, system)
+        panels_of("sdof")[0](plotext, result, system)
         assert f", {unit} " in plotext.uncolorize(plotext.build())
 
 
 def test_every_registered_check_has_charts_and_they_are_callables() -> None:
     for check in ("sdof", "forced", "isolate"):
-        assert CHARTS[check] and all(callable(draw) for draw in CHARTS[check])
+        assert panels_of(check) and all(callable(draw) for draw in panels_of(check))
 
 
 def test_downsample_keeps_the_peak_and_the_ends() -> None:

@@ -11,10 +11,10 @@ from pathlib import Path
 import numpy as np
 import pytest
 
-from calc.checks import BY_ID
-from calc.demo_records import demo_path
-from tui.charts import CHARTS
-from tui.cli import main
+from fieldmode.calc.checks import BY_ID
+from fieldmode.calc.demo import HEEL_DROP, demo_file
+from fieldmode.tui.charts import panels_of
+from fieldmode.tui.cli import main
 
 
 def run(capsys: pytest.CaptureFixture[str], *argv: str) -> tuple[int, str, str]:
@@ -24,7 +24,7 @@ def run(capsys: pytest.CaptureFixture[str], *argv: str) -> tuple[int, str, str]:
 
 
 def test_decay_with_a_positional_file_prints_results(capsys: pytest.CaptureFixture[str]) -> None:
-    code, out, err = run(capsys, "decay", str(demo_path()))
+    code, out, err = run(capsys, "decay", str(demo_file(HEEL_DROP)))
     assert code == 0 and err == ""
     for label in ("Natural frequency", "Damping ratio (decay fit)", "95 % low", "Half-power damping ratio",
                   "Zero-crossing frequency", "Fit R^2"):
@@ -34,7 +34,7 @@ def test_decay_with_a_positional_file_prints_results(capsys: pytest.CaptureFixtu
 
 def test_decay_counts_are_whole_numbers(capsys: pytest.CaptureFixture[str]) -> None:
     """Peaks and samples are counts: shown without decimals."""
-    code, out, _ = run(capsys, "decay", str(demo_path()))
+    code, out, _ = run(capsys, "decay", str(demo_file(HEEL_DROP)))
     assert code == 0
     for label in ("Peaks fitted", "Samples"):
         line = next(line for line in out.splitlines() if label in line)
@@ -42,7 +42,7 @@ def test_decay_counts_are_whole_numbers(capsys: pytest.CaptureFixture[str]) -> N
 
 
 def test_decay_json_has_the_contract_names(capsys: pytest.CaptureFixture[str]) -> None:
-    code, out, _ = run(capsys, "decay", str(demo_path()), "--band", "5 9", "--signal-unit", "m/s^2", "--json")
+    code, out, _ = run(capsys, "decay", str(demo_file(HEEL_DROP)), "--band", "5 9", "--signal-unit", "m/s^2", "--json")
     assert code == 0
     data = json.loads(out)
     results = data["results"]
@@ -98,7 +98,7 @@ def test_decrement_on_the_command_line(capsys: pytest.CaptureFixture[str]) -> No
 
 def test_the_installed_command_runs_a_decay_file(tmp_path: Path) -> None:
     script = Path(sys.executable).parent / "fieldmode"
-    done = subprocess.run([str(script), "decay", str(demo_path()), "--json"], capture_output=True, text=True,
+    done = subprocess.run([str(script), "decay", str(demo_file(HEEL_DROP)), "--json"], capture_output=True, text=True,
                           timeout=60, cwd=tmp_path)
     assert done.returncode == 0, done.stderr
     assert json.loads(done.stdout)["check"] == "decay"
@@ -115,9 +115,9 @@ def test_decay_charts_draw_with_plotext(system: str) -> None:
     import plotext as plt
 
     result = BY_ID["decay"].evaluate(BY_ID["decay"].demo_texts())
-    assert len(CHARTS["decay"]) == 2
+    assert len(panels_of("decay")) == 2
     texts = []
-    for draw in CHARTS["decay"]:
+    for draw in panels_of("decay"):
         plt.clf()
         plt.plotsize(49, 16)  # the chart pane at 80x24: plotext drops a title wider than the chart
         draw(plt, result, system)
@@ -132,7 +132,7 @@ def test_decay_charts_survive_a_result_without_series() -> None:
     import plotext as plt
 
     result = BY_ID["decrement"].evaluate(BY_ID["decrement"].demo_texts())
-    for draw in CHARTS["decay"]:
+    for draw in panels_of("decay"):
         plt.clf()
         plt.plotsize(60, 18)
         draw(plt, result, "si")

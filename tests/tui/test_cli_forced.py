@@ -7,7 +7,7 @@ import math
 
 import pytest
 
-from tui.cli import main
+from fieldmode.tui.cli import main
 
 FAN = ["forced", "--mass", "9.6 t", "--stiffness", "42 kN/mm", "--damping", "2 %", "--frequency", "740 rpm",
        "--unbalance", "0.35 kg m"]
@@ -24,7 +24,7 @@ def run(capsys: pytest.CaptureFixture[str], *argv: str) -> tuple[int, str, str]:
 def test_fan_as_text(capsys: pytest.CaptureFixture[str]) -> None:
     code, out, err = run(capsys, *FAN)
     assert code == 0 and err == ""
-    assert "!! operating within +/-20 % of resonance" in out
+    assert "!! WARNING: operating within +/-20 % of resonance" in out
     assert "run-up" in out and "licensed" in out
 
 

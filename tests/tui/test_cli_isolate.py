@@ -7,7 +7,7 @@ import math
 
 import pytest
 
-from tui.cli import main
+from fieldmode.tui.cli import main
 
 FAN = ["isolate", "--frequency", "740 rpm", "--mass", "9.6 t", "--mounts", "4", "--damping", "2 %",
        "--target-isolation", "90 %"]

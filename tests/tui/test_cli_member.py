@@ -7,7 +7,7 @@ import math
 
 import pytest
 
-from tui.cli import main
+from fieldmode.tui.cli import main
 
 BEAM = ["member", "--element", "beam", "--length", "7.2 m", "--second-moment", "29000 cm^4", "--material", "steel",
         "--mass-per-length", "1.2 t/m"]

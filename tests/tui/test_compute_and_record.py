@@ -9,10 +9,10 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from calc.checks import SPECS, sdof
-from tui.compute import evaluate, evaluate_guarded, field_of_error
-from tui.record import Entry, as_json, default_name, markdown, record_paths, write_record
-from tui.widgets.path_suggester import suggest_path
+from fieldmode.calc.checks import SPECS, sdof
+from fieldmode.tui.calc_record import Entry, as_json, default_name, markdown, record_paths, write_record
+from fieldmode.tui.evaluation import evaluate, evaluate_guarded, field_of_error
+from fieldmode.tui.widgets.path_suggester import suggest_path
 
 ALL_FIELDS = [(spec, f) for spec in SPECS for f in spec.fields]
 
@@ -50,7 +50,7 @@ def test_errors_from_the_compute_step_land_on_their_field():
     outcome = evaluate(sdof.SPEC, sdof.SPEC.demo_texts() | {"mass": "-2 t"}, "si")
     assert "greater than zero" in outcome.errors["mass"] and outcome.result is None
     assert not outcome.errors["mass"].startswith("Mass:")
-    from calc.units import InputError
+    from fieldmode.calc.framework.units import InputError
 
     assert field_of_error(sdof.SPEC, InputError("Mass", "x", "bad")).name == "mass"
     assert field_of_error(sdof.SPEC, InputError("Nothing", "x", "bad")) is None

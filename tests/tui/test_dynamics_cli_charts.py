@@ -8,9 +8,9 @@ import re
 import plotext
 import pytest
 
-from calc.checks import BY_ID
-from tui.charts import CHARTS
-from tui.cli import main
+from fieldmode.calc.checks import BY_ID
+from fieldmode.tui.charts import panels_of
+from fieldmode.tui.cli import main
 
 DEMO = {
     "storeys": ["--masses", "310 t, 300 t, 240 t", "--stiffnesses", "180, 160, 120 kN/mm",
@@ -72,8 +72,8 @@ def test_bad_input_exits_2(capsys: pytest.CaptureFixture[str], argv: list[str]) 
 def test_charts_build_at_80x24(check: str, system: str) -> None:
     spec = BY_ID[check]
     result = spec.evaluate(spec.demo_texts())
-    assert CHARTS[check]
-    for draw in CHARTS[check]:
+    assert panels_of(check)
+    for draw in panels_of(check):
         plotext.clf()
         plotext.plotsize(70, 18)
         draw(plotext, result, system)
@@ -87,7 +87,7 @@ def test_chart_markers_tell_curves_apart_without_colour() -> None:
     result = spec.evaluate(spec.demo_texts())
     plotext.clf()
     plotext.plotsize(70, 18)
-    CHARTS["storeys"][0](plotext, result, "si")
+    panels_of("storeys")[0](plotext, result, "si")
     canvas = re.sub(r"\x1b\[[0-9;]*m", "", plotext.build())
     body = "\n".join(canvas.splitlines()[1:-2])
     assert all(marker in body for marker in "ox+")
@@ -96,7 +96,7 @@ def test_chart_markers_tell_curves_apart_without_colour() -> None:
 def test_footfall_chart_without_lateral_frequencies() -> None:
     spec = BY_ID["footfall"]
     result = spec.evaluate({"frequency": "7.5 Hz", "structure": "floor"})
-    for draw in CHARTS["footfall"]:
+    for draw in panels_of("footfall"):
         plotext.clf()
         plotext.plotsize(70, 18)
         draw(plotext, result, "si")
@@ -109,7 +109,7 @@ def test_footfall_rows_stay_visible_in_a_small_panel(size: tuple[int, int], rows
     result = spec.evaluate(spec.demo_texts())
     plotext.clf()
     plotext.plotsize(*size)
-    CHARTS["footfall"][0](plotext, result, "si")
+    panels_of("footfall")[0](plotext, result, "si")
     canvas = re.sub(r"\x1b\[[0-9;]*m", "", plotext.build())
     labels = {line.split("┤")[0].strip() for line in canvas.splitlines() if "┤" in line}
     assert set(rows) <= labels

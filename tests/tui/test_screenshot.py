@@ -7,8 +7,8 @@ from pathlib import Path
 
 from pilot_keys import settle
 
-from calc.checks import SPECS
-from tui.compute import evaluate
+from fieldmode.calc.checks import SPECS
+from fieldmode.tui.evaluation import evaluate
 
 DOCS = Path(__file__).resolve().parents[2] / "docs"
 
@@ -47,11 +47,11 @@ def test_screenshots_for_the_readme(make_app):
 
 
 def test_readme_lists_every_key_of_the_app():
-    from tui.field_app import FieldApp
+    from fieldmode.tui.app import FieldmodeApp
 
     readme = (DOCS.parent / "README.md").read_text()
     assert "docs/screenshot.svg" in readme
     names = {"pagedown": "PageDown", "pageup": "PageUp", "ctrl+q": "Ctrl+Q", "ctrl+o": "Ctrl+O"}
-    for binding in FieldApp.BINDINGS:
+    for binding in FieldmodeApp.BINDINGS:
         for key in binding.key.split(","):
             assert names.get(key, key.upper()) in readme, key

@@ -5,15 +5,15 @@ from __future__ import annotations
 import plotext as plt
 import pytest
 
-from calc.checks import BY_ID
-from tui.charts import CHARTS
+from fieldmode.calc.checks import BY_ID
+from fieldmode.tui.charts import panels_of
 
 
 def build(check: str, texts: dict[str, str], system: str = "si") -> list[str]:
     spec = BY_ID[check]
     result = spec.evaluate(texts)
     pictures = []
-    for draw in CHARTS[check]:
+    for draw in panels_of(check):
         plt.clf()
         plt.plotsize(70, 18)
         plt.theme("clear")

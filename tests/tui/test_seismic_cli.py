@@ -9,8 +9,8 @@ from pathlib import Path
 
 import pytest
 
-from calc.groundmotion import demo_path
-from tui.cli import main
+from fieldmode.calc.demo import GROUND_MOTION, demo_file
+from fieldmode.tui.cli import main
 
 G0 = 9.80665  # Source: NIST SP 811 (2008), standard gravity
 
@@ -59,7 +59,7 @@ def test_period_json(capsys: pytest.CaptureFixture[str]) -> None:
 
 
 def test_spectrum_demo_file(capsys: pytest.CaptureFixture[str]) -> None:
-    status, out, _ = run(capsys, "spectrum", demo_path(), "--signal-unit", "g", "--period", "0.53 s", "--json")
+    status, out, _ = run(capsys, "spectrum", str(demo_file(GROUND_MOTION)), "--signal-unit", "g", "--period", "0.53 s", "--json")
     data = json.loads(out)
     assert status == 0
     assert data["results"]["pga"]["value"] == pytest.approx(0.18 * G0, rel=0.01)

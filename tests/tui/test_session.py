@@ -7,8 +7,8 @@ import os
 
 import pytest
 
-from tui.files import write_atomic
-from tui.session import SessionData, SessionStore, parse_session, state_dir
+from fieldmode.tui.files import write_atomic
+from fieldmode.tui.session import SessionData, SessionStore, parse_session, state_dir
 
 
 def test_state_dir_follows_xdg_state_home(tmp_path):

@@ -6,9 +6,10 @@ import dataclasses
 
 import pytest
 
-from calc.checks import SPECS, sdof
-from tui.session import SessionData
-from tui.workspace import Workspace, value_text
+from fieldmode.calc.checks import SPECS, sdof
+from fieldmode.tui.present import field_text
+from fieldmode.tui.session import SessionData
+from fieldmode.tui.workspace import Workspace
 
 TWIN = dataclasses.replace(sdof.SPEC, id="sdof-b", title="Second mass", sends={"stiffness": "stiffness"})
 OTHER = dataclasses.replace(sdof.SPEC, id="sdof-c", title="Third mass",
@@ -49,10 +50,10 @@ def test_send_fills_the_field_and_empties_its_alternatives():
 def test_sent_text_reads_back_to_the_same_value(system):
     result = sdof.SPEC.evaluate(sdof.SPEC.demo_texts())
     for value in result.values.values():
-        if isinstance(value.quantity, str) or value.kind not in ("stiffness", "frequency", "length", "mass"):
+        if value.is_word or value.kind not in ("stiffness", "frequency", "length", "mass"):
             continue
-        text = value_text(value.quantity, value.kind, system)
-        from calc.units import read
+        text = field_text(value.magnitude, value.kind, system)
+        from fieldmode.calc.framework.units import read
 
         assert read(text, value.kind).si == pytest.approx(value.si(), rel=1e-5)
 

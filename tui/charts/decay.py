@@ -6,19 +6,13 @@ from typing import Any
 
 import numpy as np
 
-from calc.kinds import KINDS
-from calc.result import Result
-from calc.units import Q_, display_unit
+from fieldmode.calc.framework.result import Result
+from fieldmode.tui.charts.common import axis_scale
 
 
 def _signal_scale(result: Result, system: str) -> tuple[float, str]:
-    """Factor from SI to the display unit of the record's signal, and the unit's name."""
-    value = result.values.get("initial_amplitude")
-    if value is None or isinstance(value.quantity, str) or value.kind not in ("acceleration", "velocity", "length"):
-        return 1.0, ""
-    unit = display_unit(value.quantity, value.kind, system)
-    factor = float(Q_(1.0, KINDS[value.kind].si).to(unit).magnitude)
-    return factor, KINDS[value.kind].names.get(unit, unit)
+    """Factor from SI to the display unit of the record's signal, and the unit's name ('' if unknown)."""
+    return axis_scale(result.series_kinds["signal"], system, result.series["peak_amplitude"])
 
 
 def draw_record(plt: Any, result: Result, system: str) -> None:
@@ -51,10 +45,13 @@ def draw_spectrum(plt: Any, result: Result, system: str) -> None:
     edges = series.get("half_power_frequency", np.empty(0))
     for edge in edges:
         plt.vline(float(edge))
-    peak = result.values.get("spectral_frequency")
-    if peak is not None and not isinstance(peak.quantity, str):
-        f = float(peak.quantity.to("Hz").magnitude)
+    f = result.number("spectral_frequency")
+    if f is not None:
         plt.scatter([f], [float(np.interp(f, frequency, amplitude))], marker="o")
     band = f" {edges[0]:.2f}-{edges[1]:.2f} Hz" if len(edges) == 2 else ""
     plt.title(f"peak o, half-power |{band}")  # short: plotext drops a title wider than the chart at 80x24
     plt.xlabel("frequency (Hz)")
+
+
+PANELS = (draw_record, draw_spectrum)
+"""The chart panels of the check, in the order they are shown."""

@@ -4,22 +4,25 @@ from __future__ import annotations
 
 from typing import Any
 
-from calc.result import Result
-from tui.charts._seismic import acceleration_scale, mark_period
-from tui.charts.common import LINE_MARKER, downsample, optional_value
+from fieldmode.calc.framework.result import Result
+from fieldmode.tui.charts.common import LINE_MARKER, axis_scale, downsample, mark_period
 
 
 def draw_spectrum(plt: Any, result: Result, system: str) -> None:
     """Se(T) (and Sd(T) with q) against period, linear axis; the period marked with X."""
-    scale, unit = acceleration_scale(system)
     period = result.series["period"]
-    x, y = downsample(period, result.series["spectral_acceleration"] / scale)
+    scale, unit = axis_scale("acceleration", system, result.series["spectral_acceleration"])
+    x, y = downsample(period, result.series["spectral_acceleration"] * scale)
     plt.plot(x, y, marker=LINE_MARKER, label="Se")
     if "design_spectral_acceleration" in result.series:
-        x, y = downsample(period, result.series["design_spectral_acceleration"] / scale)
+        x, y = downsample(period, result.series["design_spectral_acceleration"] * scale)
         plt.plot(x, y, marker="dot", label="Sd")
-    marked = optional_value(result, "spectral_acceleration")
+    marked = result.number("spectral_acceleration")
     at = result.inputs["period"].value if "period" in result.inputs else None
-    mark_period(plt, at, None if marked is None else marked / scale)
+    mark_period(plt, at, None if marked is None else marked * scale)
     plt.title(f"EN 1998-1 spectrum ({unit})")
     plt.xlabel("T (s)")
+
+
+PANELS = (draw_spectrum,)
+"""The chart panels of the check, in the order they are shown."""

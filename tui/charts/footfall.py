@@ -8,8 +8,8 @@ from __future__ import annotations
 
 from typing import Any
 
-from calc.footfall import BANDS
-from calc.result import Result
+from fieldmode.calc.framework.result import Result
+from fieldmode.calc.physics.footfall import BANDS
 
 AXIS_MIN_HZ = 3.0
 """The frequency axis reaches at least this far (Hz)."""
@@ -48,3 +48,7 @@ def draw_vertical(plt: Any, result: Result, system: str) -> None:
 def draw_lateral(plt: Any, result: Result, system: str) -> None:
     """Lateral forcing bands with the lateral frequencies marked."""
     _draw(plt, result, "lateral", "lateral_frequencies")
+
+
+PANELS = (draw_vertical, draw_lateral)
+"""The chart panels of the check, in the order they are shown."""

@@ -4,9 +4,9 @@ from __future__ import annotations
 
 from typing import Any
 
-from calc.harmonic import RESONANCE_BAND
-from calc.result import Result
-from tui.charts.common import LINE_MARKER, OPERATING_MARKER, downsample, value
+from fieldmode.calc.framework.result import Result
+from fieldmode.calc.physics.forced import RESONANCE_BAND
+from fieldmode.tui.charts.common import LINE_MARKER, OPERATING_MARKER, downsample
 
 
 def _band(plt: Any) -> None:
@@ -20,7 +20,7 @@ def draw_amplification(plt: Any, result: Result, system: str) -> None:
     ratio, gain = downsample(result.series["frequency_ratio"], result.series["amplification"])
     plt.plot(ratio, gain, marker=LINE_MARKER)
     _band(plt)
-    plt.scatter([value(result, "frequency_ratio")], [value(result, "amplification")], marker=OPERATING_MARKER)
+    plt.scatter([result.number("frequency_ratio")], [result.number("amplification")], marker=OPERATING_MARKER)
     plt.yscale("log")
     plt.xlim(0.0, ratio[-1])
     plt.title(f"Amplification R_d ({OPERATING_MARKER} = operating, lines = +/-20 %)")
@@ -32,9 +32,13 @@ def draw_phase(plt: Any, result: Result, system: str) -> None:
     ratio, lag = downsample(result.series["frequency_ratio"], result.series["phase"])
     plt.plot(ratio, lag, marker=LINE_MARKER)
     _band(plt)
-    plt.scatter([value(result, "frequency_ratio")], [value(result, "phase")], marker=OPERATING_MARKER)
+    plt.scatter([result.number("frequency_ratio")], [result.number("phase")], marker=OPERATING_MARKER)
     plt.xlim(0.0, ratio[-1])
     plt.ylim(0.0, 180.0)
     plt.yticks([0, 45, 90, 135, 180])
     plt.title(f"Phase lag, deg ({OPERATING_MARKER} = operating)")
     plt.xlabel("r = f/fn")
+
+
+PANELS = (draw_amplification, draw_phase)
+"""The chart panels of the check, in the order they are shown."""

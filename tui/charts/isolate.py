@@ -4,9 +4,9 @@ from __future__ import annotations
 
 from typing import Any
 
-from calc.isolation import AMPLIFYING_RATIO
-from calc.result import Result
-from tui.charts.common import LINE_MARKER, OPERATING_MARKER, downsample, value
+from fieldmode.calc.framework.result import Result
+from fieldmode.calc.physics.isolate import AMPLIFYING_RATIO
+from fieldmode.tui.charts.common import LINE_MARKER, OPERATING_MARKER, downsample
 
 
 def draw_transmissibility(plt: Any, result: Result, system: str) -> None:
@@ -15,8 +15,12 @@ def draw_transmissibility(plt: Any, result: Result, system: str) -> None:
     plt.plot(ratio, transmitted, marker=LINE_MARKER)
     plt.hline(1.0)
     plt.vline(AMPLIFYING_RATIO)
-    plt.scatter([value(result, "frequency_ratio")], [value(result, "transmissibility")], marker=OPERATING_MARKER)
+    plt.scatter([result.number("frequency_ratio")], [result.number("transmissibility")], marker=OPERATING_MARKER)
     plt.yscale("log")
     plt.xlim(0.0, ratio[-1])
     plt.title(f"Transmissibility T ({OPERATING_MARKER} = operating; T = 1, r = 1.41)")
     plt.xlabel("r = f/fn")
+
+
+PANELS = (draw_transmissibility,)
+"""The chart panels of the check, in the order they are shown."""

@@ -4,21 +4,24 @@ from __future__ import annotations
 
 from typing import Any
 
-from calc.result import Result
-from tui.charts.common import LINE_MARKER, OPERATING_MARKER, optional_value
+from fieldmode.calc.framework.result import Result
+from fieldmode.tui.charts.common import LINE_MARKER, OPERATING_MARKER, axis_scale
 
 
 def draw_period(plt: Any, result: Result, system: str) -> None:
     """T1 (EN 1998-1) and Ta (ASCE 7) against height; the building marked with X on both."""
-    metres = system != "us"
-    factor, unit = (1.0, "m") if metres else (1.0 / 0.3048, "ft")
+    factor, unit = axis_scale("length", system, result.series["height"])
     height = (result.series["height"] * factor).tolist()
     plt.plot(height, result.series["period_en"].tolist(), marker=LINE_MARKER, label="EN")
     plt.plot(height, result.series["period_asce"].tolist(), marker="dot", label="ASCE")
     h = result.inputs["height"].value if "height" in result.inputs else None
-    en, asce = optional_value(result, "period"), optional_value(result, "period_asce")
+    en, asce = result.number("period"), result.number("period_asce")
     if h is not None and en is not None and asce is not None:
         plt.vline(h * factor)
         plt.scatter([h * factor, h * factor], [en, asce], marker=OPERATING_MARKER)
     plt.title("period T (s)")
     plt.xlabel(f"height ({unit})")
+
+
+PANELS = (draw_period,)
+"""The chart panels of the check, in the order they are shown."""

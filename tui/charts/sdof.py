@@ -6,20 +6,18 @@ from typing import Any
 
 import numpy as np
 
-from calc.result import Result
-from calc.units import Q_
-from tui.charts.common import LINE_MARKER, OPERATING_MARKER, downsample
+from fieldmode.calc.framework.result import Result
+from fieldmode.tui.charts.common import LINE_MARKER, OPERATING_MARKER, axis_scale, downsample
 
-DISPLACEMENT_UNIT = {"si": "mm", "us": "in"}
 ENVELOPE_MARKER = "dot"
 
 
 def draw_free_response(plt: Any, result: Result, system: str) -> None:
-    """Displacement (mm or in) against time (s); the start is marked, the envelope dotted."""
-    unit = DISPLACEMENT_UNIT[system]
-    scale = float(Q_(1.0, "m").to(unit).magnitude)
+    """Displacement against time (s); the start is marked, the envelope dotted."""
     time = np.asarray(result.series["time"])
-    shown = np.asarray(result.series["displacement"]) * scale
+    displacement = np.asarray(result.series["displacement"])
+    scale, unit = axis_scale("length", system, displacement)
+    shown = displacement * scale
     plt.plot(*downsample(time, shown), marker=LINE_MARKER)
     if "envelope" in result.series:
         envelope = np.asarray(result.series["envelope"]) * scale
@@ -29,3 +27,7 @@ def draw_free_response(plt: Any, result: Result, system: str) -> None:
     plt.xlim(0.0, float(time[-1]))
     plt.title(f"Free response u, {unit} ({OPERATING_MARKER} = start)")
     plt.xlabel("t (s)")
+
+
+PANELS = (draw_free_response,)
+"""The chart panels of the check, in the order they are shown."""

@@ -5,24 +5,23 @@ from __future__ import annotations
 
 from typing import Any
 
-from calc.result import Result
-from tui.charts._seismic import acceleration_scale, log_period_axis, mark_period
-from tui.charts.common import LINE_MARKER, downsample, optional_value
+from fieldmode.calc.framework.result import Result
+from fieldmode.tui.charts.common import LINE_MARKER, axis_scale, downsample, log_period_axis, mark_period
 
 
 def draw_psa(plt: Any, result: Result, system: str) -> None:
     """Pseudo-acceleration against period (log), the design spectrum dotted, the period marked with X."""
-    scale, unit = acceleration_scale(system)
     period = result.series["period"]
-    x, y = downsample(period, result.series["psa"] / scale)
+    scale, unit = axis_scale("acceleration", system, result.series["psa"])
+    x, y = downsample(period, result.series["psa"] * scale)
     plt.plot(x, y, marker=LINE_MARKER, label="psa")
     if "design_psa" in result.series:
-        x, y = downsample(period, result.series["design_psa"] / scale)
+        x, y = downsample(period, result.series["design_psa"] * scale)
         plt.plot(x, y, marker="dot", label="EN 1998-1")
-    psa = optional_value(result, "psa")
+    psa = result.number("psa")
     at = result.inputs["period"].value if "period" in result.inputs else None
     if at is not None and period[0] <= at <= period[-1]:
-        mark_period(plt, at, None if psa is None else psa / scale)
+        mark_period(plt, at, None if psa is None else psa * scale)
     log_period_axis(plt, float(period[0]), float(period[-1]))
     plt.title(f"psa ({unit})")
 
@@ -30,13 +29,14 @@ def draw_psa(plt: Any, result: Result, system: str) -> None:
 def draw_history(plt: Any, result: Result, system: str) -> None:
     """Relative displacement of the single mass with the marked period against time."""
     time = result.series["time"]
-    factor, unit = (1000.0, "mm") if system != "us" else (1.0 / 0.0254, "in")
     if "response_displacement" not in result.series:
         plt.title("no period marked: give one for its time history")
         return
-    x, y = downsample(time, result.series["response_displacement"] * factor)
+    displacement = result.series["response_displacement"]
+    factor, unit = axis_scale("length", system, displacement)
+    x, y = downsample(time, displacement * factor)
     plt.plot(x, y, marker=LINE_MARKER)
-    peak = optional_value(result, "sd")
+    peak = result.number("sd")
     if peak is not None:
         plt.hline(peak * factor)
         plt.hline(-peak * factor)
@@ -46,8 +46,13 @@ def draw_history(plt: Any, result: Result, system: str) -> None:
 
 def draw_record(plt: Any, result: Result, system: str) -> None:
     """Ground acceleration of the record as analysed (baseline-corrected)."""
-    scale, unit = acceleration_scale(system)
-    x, y = downsample(result.series["time"], result.series["ground_acceleration"] / scale)
+    acceleration = result.series["ground_acceleration"]
+    scale, unit = axis_scale("acceleration", system, acceleration)
+    x, y = downsample(result.series["time"], acceleration * scale)
     plt.plot(x, y, marker=LINE_MARKER)
     plt.title(f"ground acceleration ({unit})")
     plt.xlabel("t (s)")
+
+
+PANELS = (draw_psa, draw_history, draw_record)
+"""The chart panels of the check, in the order they are shown."""

@@ -4,8 +4,8 @@ from __future__ import annotations
 
 from typing import Any
 
-from calc.result import Result
-from calc.units import Q_
+from fieldmode.calc.framework.result import Result
+from fieldmode.tui.charts.common import axis_scale
 
 MARKERS = ("o", "x", "+")
 """One marker per mode, so the modes stay apart without colour."""
@@ -14,8 +14,8 @@ MARKERS = ("o", "x", "+")
 def draw_mode_shapes(plt: Any, result: Result, system: str) -> None:
     """Mode shapes 1-3 (roof = 1) against floor level, the base at 0."""
     if "height" in result.series:
-        unit = "ft" if system == "us" else "m"
-        level = Q_(result.series["height"], "m").to(unit).magnitude
+        factor, unit = axis_scale("length", system, result.series["height"])
+        level = result.series["height"] * factor
         plt.ylabel(f"height {unit}")
     else:
         level = result.series["storey"]
@@ -27,3 +27,7 @@ def draw_mode_shapes(plt: Any, result: Result, system: str) -> None:
             plt.plot(list(shape), list(level), marker=marker)
     plt.title("Mode shapes: 1 o, 2 x, 3 +")
     plt.xlabel("shape (roof = 1)")
+
+
+PANELS = (draw_mode_shapes,)
+"""The chart panels of the check, in the order they are shown."""

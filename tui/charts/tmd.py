@@ -6,7 +6,7 @@ from typing import Any
 
 import numpy as np
 
-from calc.result import Result
+from fieldmode.calc.framework.result import Result
 
 CLIP = 10.0
 """Without-damper curves are cut at this multiple of the damped peak, so the damped curve stays readable."""
@@ -37,3 +37,7 @@ def draw_mistuning(plt: Any, result: Result, system: str) -> None:
     plt.plot(ratio, list(result.series["amplification_mistuned_low"]), marker="-")
     plt.plot(ratio, list(result.series["amplification_mistuned_high"]), marker="+")
     plt.plot(ratio, list(result.series["amplification"]), marker="*")
+
+
+PANELS = (draw_response, draw_mistuning)
+"""The chart panels of the check, in the order they are shown."""

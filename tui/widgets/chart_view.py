@@ -9,8 +9,8 @@ from textual.app import ComposeResult
 from textual.containers import Vertical
 from textual.widgets import Static
 
-from calc.result import Result
-from tui.charts import CHARTS
+from fieldmode.calc.framework.result import Result
+from fieldmode.tui.charts import panels_of
 
 _BOX_TO_ASCII = str.maketrans({"─": "-", "━": "-", "│": "|", "┃": "|", "┌": "+", "┐": "+", "└": "+", "┘": "+",
                                "├": "+", "┤": "+", "┬": "+", "┴": "+", "┼": "+", "•": "*", "·": "."})
@@ -58,12 +58,8 @@ class ChartPane(Vertical):
         super().__init__(classes="chart-pane")
         self.check_id = check_id
         self.panel = 0
-        """Index of the panel shown, into CHARTS[check_id]."""
+        """Index of the panel shown, into the check's chart panels."""
         self._plot: Any = None
-
-    @property
-    def panel_count(self) -> int:
-        return len(CHARTS.get(self.check_id, ()))
 
     def compose(self) -> ComposeResult:
         yield Static("", classes="chart-message", markup=False)
@@ -71,7 +67,7 @@ class ChartPane(Vertical):
     def draw(self, result: Result | None, system: str, computing: bool = False) -> None:
         """Draw the current panel for ``result`` (or say why there is none, or that it is being computed)."""
         message = self.query_one(".chart-message", Static)
-        draws = CHARTS.get(self.check_id, ())
+        draws = panels_of(self.check_id)
         if not draws or result is None:
             message.update("no chart for this check" if not draws else
                            "computing..." if computing else "no chart: fix the inputs marked !")

@@ -11,8 +11,8 @@ from textual.containers import Vertical
 from textual.widgets import OptionList, Static
 from textual.widgets.option_list import Option
 
-from calc.spec import CheckSpec
-from tui.widgets.dialog import Dialog
+from fieldmode.calc.framework.spec import CheckSpec
+from fieldmode.tui.widgets.dialog import Dialog
 
 
 class CheckListScreen(Dialog[str | None]):

@@ -2,7 +2,6 @@
 
 from __future__ import annotations
 
-from collections.abc import Callable
 from dataclasses import dataclass
 from typing import TYPE_CHECKING
 
@@ -14,21 +13,22 @@ from textual.timer import Timer
 from textual.widgets import Input
 from textual.worker import get_current_worker
 
-from calc.fields import CheckOutline
-from tui.compute import Outcome, evaluate_guarded, shown_of
-from tui.widgets.field_row import FieldRow
-from tui.widgets.results_view import FlagsList, ResultsTable
-from tui.workspace import Workspace
+from fieldmode.tui.widgets.field_row import FieldRow
+from fieldmode.tui.widgets.results_view import FlagsList, ResultsTable
+from fieldmode.tui.workspace import Workspace
 
 if TYPE_CHECKING:
-    from calc.spec import CheckSpec
-    from tui.widgets.chart_view import ChartPane
+    from fieldmode.calc.framework.spec import CheckSpec
+    from fieldmode.tui.evaluation import Outcome
+    from fieldmode.tui.widgets.chart_view import ChartPane
 
-# The charts (plotext) load when a chart is first shown, and the core (numpy, pint, the
-# checks) when a check is first computed here: start-up time is budgeted (DESIGN.md 7).
+# Charts (plotext) load when a chart is first shown, and the unit reader and presenter (pint)
+# when the pane first computes, in its worker: the first frame shows the fields without them.
 
 THROTTLE = 0.15
 """Seconds: a keystroke after a quiet spell computes at once; further ones within this wait for its end."""
+MOST_ITEMS = 6
+"""A list result shows at most this many values in the results table (all in the calc record)."""
 
 
 class CheckView(Vertical):
@@ -47,15 +47,12 @@ class CheckView(Vertical):
 
         check_id: str
 
-    def __init__(self, spec: CheckSpec | CheckOutline, workspace: Workspace,
-                 first: Callable[[], Outcome | None] | None = None) -> None:
-        """``first`` gives the outcome of the check's texts when it was computed elsewhere (or None)."""
+    def __init__(self, spec: CheckSpec, workspace: Workspace) -> None:
         super().__init__(id=f"check-{spec.id}", classes="check-view")
         self.spec = spec
         self.workspace = workspace
         self.outcome: Outcome | None = None
         """The last evaluation shown."""
-        self._first = first
         self.view = 0
         """0 shows the results table; n >= 1 shows chart panel n."""
         self.stale = False
@@ -79,11 +76,6 @@ class CheckView(Vertical):
         texts = self.workspace.texts[self.spec.id]
         self._rows = {spec_field.name: FieldRow(self.spec.id, spec_field, texts.get(spec_field.name, ""), self._edited)
                       for spec_field in self.spec.fields}
-        first = self._first() if self._first is not None else None
-        if first is not None and first.check == self.spec.id and first.texts == texts:
-            self._show(first)
-        elif not self._reads_files:  # a few milliseconds: the widgets are made with the results in them
-            self._show(evaluate_guarded(self.spec, dict(texts), self.workspace.system))
         with Horizontal(classes="panes"):
             with VerticalScroll(classes="fields") as fields:
                 fields.can_focus = False
@@ -93,15 +85,9 @@ class CheckView(Vertical):
                 yield self._table
         yield self._flags
 
-    @property
-    def _reads_files(self) -> bool:
-        return any(f.kind == "path" for f in self.spec.fields)
-
     def on_mount(self) -> None:
-        if self.outcome is None:
-            self.request_compute()  # reading a file may take a while: never before the first frame
-        else:
-            self.post_message(self.Computed(self.spec.id))
+        self._table.show_problem("computing...")
+        self.request_compute()
 
     def rows(self) -> list[FieldRow]:
         return list(self._rows.values())
@@ -155,6 +141,8 @@ class CheckView(Vertical):
 
     @work(thread=True, exclusive=True, group="compute")
     def _compute(self, texts: dict[str, str], system: str) -> None:
+        from fieldmode.tui.evaluation import evaluate_guarded  # the core: loaded here, after the first frame
+
         outcome = evaluate_guarded(self.spec, texts, system)
         if not get_current_worker().is_cancelled:
             self.app.call_from_thread(self.apply, outcome)
@@ -167,17 +155,20 @@ class CheckView(Vertical):
         self.post_message(self.Computed(self.spec.id))
 
     def _show(self, outcome: Outcome) -> None:
+        from fieldmode.tui.present import value_lines  # loaded by the compute worker already
+
         self.outcome = outcome
         for name, row in self._rows.items():
             row.show(self._note(name, outcome), outcome.errors.get(name, ""))
-        shown = shown_of(outcome)
-        if shown is not None:
-            self._table.show_rows(shown.rows)
-            self._flags.show_flags(shown.flags)
+        result = outcome.result
+        if result is not None:
+            self._table.show_rows([(value.label, "\n".join(value_lines(value, outcome.system, MOST_ITEMS)))
+                                   for value in result.values.values()])
+            self._flags.show_flags(result.flags)
         else:
             bad = [self.spec.field(name).label for name in outcome.errors]
             self._table.show_problem(outcome.problem or "Fix the field marked ! : " + ", ".join(bad))
-            self._flags.show_flags([])
+            self._flags.show_flags(())
 
     def _note(self, name: str, outcome: Outcome) -> str:
         note = outcome.notes.get(name, "")
@@ -201,10 +192,10 @@ class CheckView(Vertical):
 
     async def cycle_view(self) -> str:
         """Results -> chart panel 1 -> ... -> results; return what is shown now."""
-        from tui.charts import CHARTS
-        from tui.widgets.chart_view import ChartPane
+        from fieldmode.tui.charts import panels_of
+        from fieldmode.tui.widgets.chart_view import ChartPane
 
-        panels = max(len(CHARTS.get(self.spec.id, ())), 1)
+        panels = max(len(panels_of(self.spec.id)), 1)
         self.view = (self.view + 1) % (panels + 1)
         if self.view and self._chart is None:
             self._chart = ChartPane(self.spec.id)
@@ -217,8 +208,5 @@ class CheckView(Vertical):
             return "results"
         self._chart.panel = self.view - 1
         outcome = self.outcome
-        as_text = outcome is not None and outcome.result is None and outcome.shown is not None
-        if as_text:  # the results came as text from another process: the chart needs the result itself
-            self.request_compute()
-        self._chart.draw(outcome.result if outcome else None, self.workspace.system, computing=as_text)
+        self._chart.draw(outcome.result if outcome else None, self.workspace.system, computing=outcome is None)
         return f"chart {self.view}/{panels}"

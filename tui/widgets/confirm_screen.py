@@ -8,7 +8,7 @@ from textual.binding import Binding
 from textual.containers import Horizontal, Vertical
 from textual.widgets import Button, Static
 
-from tui.widgets.dialog import Dialog
+from fieldmode.tui.widgets.dialog import Dialog
 
 
 class ConfirmScreen(Dialog[bool]):

@@ -12,9 +12,9 @@ from textual.binding import Binding
 from textual.containers import Vertical
 from textual.widgets import Input, RadioButton, RadioSet, Static
 
-from tui.record import record_paths
-from tui.widgets.confirm_screen import ConfirmScreen
-from tui.widgets.dialog import Dialog
+from fieldmode.tui.calc_record import record_paths
+from fieldmode.tui.widgets.confirm_screen import ConfirmScreen
+from fieldmode.tui.widgets.dialog import Dialog
 
 Writer = Callable[[Path, str], str]
 """write(path, scope) -> '' when written, else a one-line problem; scope is 'check' or 'session'."""

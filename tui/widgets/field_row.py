@@ -13,9 +13,9 @@ from textual.content import Content
 from textual.suggester import SuggestFromList
 from textual.widgets import Input, Static
 
-from calc.fields import Field
-from tui.widgets.dialog import hand_to_dialog
-from tui.widgets.path_suggester import PathSuggester
+from fieldmode.calc.framework.spec import Field
+from fieldmode.tui.widgets.dialog import hand_to_dialog
+from fieldmode.tui.widgets.path_suggester import PathSuggester
 
 MAX_INPUT = 4096
 """Characters accepted in a text box (the parser refuses long text with a clear message)."""
@@ -70,7 +70,7 @@ class FieldRow(Vertical):
 
     The row draws its label line itself (the field line below it covers the rest of
     the row), and the error line is made the first time the field has an error: every
-    widget costs start-up time (DESIGN.md section 7).
+    widget costs start-up time.
     """
 
     def __init__(self, check_id: str, spec_field: Field, text: str, edited: Callable[[str, str], None]) -> None:
@@ -103,7 +103,7 @@ class FieldRow(Vertical):
 
     def render(self) -> Content:
         """The label line: a '>' marker on the field in focus, the label with its unit."""
-        label = self.field.shown_label
+        label = self.field.label_with_unit
         if self.field.many:
             label += ", list"
         return Content.styled(("> " if self._focused else "  ") + label, "bold")

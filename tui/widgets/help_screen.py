@@ -11,7 +11,7 @@ from textual.binding import Binding
 from textual.containers import Vertical, VerticalScroll
 from textual.widgets import Static
 
-from tui.widgets.dialog import Dialog
+from fieldmode.tui.widgets.dialog import Dialog
 
 EXTRA_KEYS: tuple[tuple[str, str], ...] = (
     ("Tab / Shift+Tab", "next / previous field"),

@@ -8,8 +8,8 @@ from textual.binding import Binding
 from textual.containers import Vertical
 from textual.widgets import DataTable, Static
 
-from calc.lookups import Row, Table
-from tui.widgets.dialog import Dialog
+from fieldmode.calc.typical_values import Row, Table
+from fieldmode.tui.widgets.dialog import Dialog
 
 
 class LookupScreen(Dialog[Row | None]):

@@ -8,8 +8,8 @@ from textual.app import RenderResult
 from textual.geometry import Size
 from textual.widgets import Static
 
-LEVEL_WORDS = {"info": "note", "caution": "caution", "warning": "WARNING"}
-"""Flag levels as words, shown beside their mark: meaning never rests on colour."""
+from fieldmode.calc.framework.result import Flag
+
 LEVEL_STYLES = {"info": "", "caution": "bold", "warning": "bold reverse"}
 LONG_VALUE = 24
 """A value longer than this (characters) folds in three fifths of the width; labels keep two fifths."""
@@ -33,7 +33,7 @@ class ResultsTable(Static):
         if self._lines is None or self._lines[0] is not table or self._lines[1] != width:
             console = self.app.console
             rows = console.render_lines(table, console.options.update_width(width), pad=False)
-            text = Text("\n").join(Text.assemble(*((segment.text, segment.style) for segment in row)) for row in rows)
+            text = Text("\n").join(Text.assemble(*((segment.text, segment.style or "") for segment in row)) for row in rows)
             self._lines = (table, width, text)
         return self._lines[2]
 
@@ -46,7 +46,7 @@ class ResultsTable(Static):
         return super().render() if lines is None else lines
 
     def show_rows(self, rows: list[tuple[str, str]]) -> None:
-        """Show (label, value with its unit) rows (see :func:`tui.compute.as_shown`)."""
+        """Show (label, value with its unit) rows."""
         # a long value (a list per storey, a sentence) folds in a fixed share, so labels stay readable
         folded = any(len(text) > LONG_VALUE for _, text in rows)
         table = Table(box=None, show_header=False, padding=(0, 1, 0, 0), expand=True)
@@ -57,21 +57,24 @@ class ResultsTable(Static):
         self.update(table)
 
     def show_problem(self, problem: str) -> None:
-        self.update(Text("No result. " + problem))
+        """Say why there are no results (or that they are being computed)."""
+        self.update(Text(problem if problem.endswith("...") else "No result. " + problem))
 
 
-def flag_line(mark: str, level: str, text: str) -> Text:
-    """A flag as one line: mark, level word, text."""
-    line = Text(f"{mark:<2} {LEVEL_WORDS[level]}: ", style=LEVEL_STYLES[level])
-    line.append(text)
+def flag_line(flag: Flag) -> Text:
+    """A flag as one line: mark and level word (styled by level), then the text."""
+    from fieldmode.tui.present import flag_heading  # loaded with the first result
+
+    line = Text(flag_heading(flag.level) + ": ", style=LEVEL_STYLES[flag.level])
+    line.append(flag.text)
     return line
 
 
 class FlagsList(Static):
     """The flags of the current result, each marked by a symbol and a word."""
 
-    def show_flags(self, flags: list[tuple[str, str, str]]) -> None:
-        """Show (mark, level, text) flags (see :class:`tui.compute.Shown`)."""
+    def show_flags(self, flags: tuple[Flag, ...]) -> None:
+        """Show the flags of a result, one per line."""
         self.display = bool(flags)
-        self.update(Text("\n").join(flag_line(*flag) for flag in flags))
+        self.update(Text("\n").join(flag_line(flag) for flag in flags))
 

@@ -3,15 +3,17 @@
 from __future__ import annotations
 
 import functools
-import math
 from collections.abc import Callable
+from typing import TYPE_CHECKING
 
 import numpy as np
 
-from calc.result import Result
-from calc.spec import Inputs
+from fieldmode.calc.framework.result import Result
 
-Compute = Callable[[Inputs], Result]
+if TYPE_CHECKING:
+    from fieldmode.calc.framework.reading import Inputs
+
+Compute = Callable[["Inputs"], Result]
 
 
 def overflow_guard(field: str) -> Callable[[Compute], Compute]:
@@ -35,7 +37,7 @@ def overflow_guard(field: str) -> Callable[[Compute], Compute]:
 
 
 def _all_finite(result: Result) -> bool:
-    numbers = [value.si() for value in result.values.values()]
-    if not all(math.isfinite(n) for n in numbers if isinstance(n, float)):
-        return False
+    for value in result.values.values():
+        if not value.is_word and not np.all(np.isfinite(value.magnitude)):
+            return False
     return all(bool(np.all(np.isfinite(array))) for array in result.series.values())

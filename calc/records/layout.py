@@ -9,7 +9,7 @@ import re
 from dataclasses import dataclass
 from pathlib import Path
 
-from calc.units import InputError
+from fieldmode.calc.framework.units import InputError
 
 HEAD_BYTES = 65536
 """Bytes read to find the layout."""

@@ -14,11 +14,11 @@ from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
 
-from calc import __version__
-from calc.result import LEVEL_MARKS
-from calc.spec import CheckSpec
-from tui.compute import Outcome, shown_value
-from tui.files import write_atomic
+from fieldmode.calc import __version__
+from fieldmode.calc.framework.spec import CheckSpec
+from fieldmode.tui.evaluation import Outcome
+from fieldmode.tui.files import write_atomic
+from fieldmode.tui.present import flag_text, si_text, typed_si_text, value_text
 
 
 @dataclass(frozen=True)
@@ -45,18 +45,6 @@ def _cell(text: object) -> str:
     return str(text).replace("|", "\\|").replace("\n", " ")
 
 
-def _si_text(value: Any, unit: str | None) -> str:
-    """An SI value for the record: 6 significant figures, the unit unless it is a ratio ('1')."""
-    shown_unit = "" if unit in (None, "1") else f" {unit}"
-    if value is None:
-        return ""
-    if isinstance(value, float):
-        return f"{value:.6g}{shown_unit}"
-    if isinstance(value, list):
-        return ", ".join(f"{v:.6g}" if isinstance(v, float) else str(v) for v in value) + shown_unit
-    return str(value)
-
-
 def markdown(entries: Sequence[Entry], system: str, when: time.struct_time) -> str:
     """The record as Markdown."""
     cautions = list(dict.fromkeys(entry.spec.caution for entry in entries))
@@ -74,26 +62,24 @@ def _check_markdown(entry: Entry) -> list[str]:
     spec, outcome, result = entry.spec, entry.outcome, entry.outcome.result
     lines = [f"## {spec.title} ({spec.id})", "", spec.summary, "", "### Inputs", "",
              "| Input | As typed | SI | Read as |", "| --- | --- | --- | --- |"]
-    recorded = result.to_dict()["inputs"] if result is not None else {}
+    inputs = result.inputs if result is not None else {}
     for spec_field in spec.fields:
         typed = entry.texts.get(spec_field.name, "")
         if not typed.strip():
             continue
-        si = recorded.get(spec_field.name, {})
+        read = inputs.get(spec_field.name)
+        si = typed_si_text(read.value, read.unit) if read is not None else ""
         read_as = outcome.errors.get(spec_field.name) or outcome.notes.get(spec_field.name, "")
-        lines.append(f"| {_cell(spec_field.shown_label)} | {_cell(typed)} | "
-                     f"{_cell(_si_text(si.get('value'), si.get('unit')))} | {_cell(read_as)} |")
+        lines.append(f"| {_cell(spec_field.label_with_unit)} | {_cell(typed)} | {_cell(si)} | {_cell(read_as)} |")
     lines.append("")
     if result is None:
         problems = [f"- {spec.field(name).label}: {text}" for name, text in outcome.errors.items()]
         return lines + ["### Not computed", "", *problems, *([f"- {outcome.problem}"] if outcome.problem else []), ""]
     lines += ["### Results", "", "| Result | Value | SI |", "| --- | --- | --- |"]
-    results = result.to_dict()["results"]
-    for name, value in result.values.items():
-        lines.append(f"| {_cell(value.label)} | {_cell(shown_value(value, outcome.system))} | "
-                     f"{_cell(_si_text(results[name]['value'], results[name]['unit']))} |")
+    for value in result.values.values():
+        lines.append(f"| {_cell(value.label)} | {_cell(value_text(value, outcome.system))} | {_cell(si_text(value))} |")
     lines += ["", "### Flags", ""]
-    lines += [f"- {LEVEL_MARKS[flag.level]} {flag.level}: {flag.text}" for flag in result.flags] or ["- none"]
+    lines += [f"- {flag_text(flag)}" for flag in result.flags] or ["- none"]
     lines += ["", "### Method and sources", ""]
     lines += [f"- {ref.method}: {ref.source}" for ref in result.references] or ["- none stated"]
     return lines + ["", f"Caution: {result.caution}", ""]

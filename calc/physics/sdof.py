@@ -9,7 +9,7 @@ import math
 
 import numpy as np
 
-from calc.units import STANDARD_GRAVITY
+from fieldmode.calc.physics.constants import STANDARD_GRAVITY
 
 CRITICAL_TOLERANCE = 1e-9
 """Damping ratios this close to 1 are treated as critically damped."""

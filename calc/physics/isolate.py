@@ -7,7 +7,7 @@ from __future__ import annotations
 
 import math
 
-from calc.harmonic import transmissibility
+from fieldmode.calc.physics.forced import transmissibility
 
 AMPLIFYING_RATIO = math.sqrt(2.0)
 """Below this frequency ratio the mounts transmit more force than they receive (T > 1)."""

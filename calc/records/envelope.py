@@ -10,7 +10,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from calc.sdof import damping_ratio_from_log_decrement
+from fieldmode.calc.physics.sdof import damping_ratio_from_log_decrement
 
 
 @dataclass(frozen=True)
@@ -113,45 +113,6 @@ def damping_from_sigma(sigma: float, damped_frequency: float) -> tuple[float, fl
     """Log decrement delta = sigma T_d and the exact damping ratio delta / sqrt(4 pi^2 + delta^2)."""
     decrement = sigma / damped_frequency
     return decrement, damping_ratio_from_log_decrement(decrement)
-
-
-def decrement_from_peaks(first: float, later: float, cycles: float) -> tuple[float, float]:
-    """Log decrement (1/n) ln(u_i / u_(i+n)) and damping ratio from two peak amplitudes n cycles apart."""
-    if not (first > 0 and later > 0 and cycles > 0):
-        raise ValueError("peak amplitudes and the number of cycles must be positive")
-    decrement = math.log(first / later) / cycles
-    return decrement, damping_ratio_from_log_decrement(decrement)
-
-
-@dataclass(frozen=True)
-class AmplitudeWindows:
-    """Damping ratio fitted over successive windows of peaks, largest amplitude first."""
-
-    amplitude: np.ndarray
-    damping_ratio: np.ndarray
-    low: np.ndarray
-    high: np.ndarray
-
-    def __len__(self) -> int:
-        return len(self.amplitude)
-
-
-def damping_by_amplitude(peaks: Peaks, damped_frequency: float, per_window: int = 6,
-                         step: int = 2) -> AmplitudeWindows:
-    """Damping ratio (with its 95 % interval) over windows of ``per_window`` peaks, against the
-    window's geometric-mean amplitude; empty when fewer than two windows fit."""
-    rows = []
-    for start in range(0, len(peaks) - per_window + 1, step):
-        part = slice(start, start + per_window)
-        fit = fit_envelope(peaks.time[part], peaks.amplitude[part])
-        rows.append((float(np.exp(np.mean(np.log(np.abs(peaks.amplitude[part]))))),
-                     damping_from_sigma(fit.sigma, damped_frequency)[1],
-                     damping_from_sigma(fit.sigma_low, damped_frequency)[1],
-                     damping_from_sigma(fit.sigma_high, damped_frequency)[1]))
-    if len(rows) < 2:
-        return AmplitudeWindows(np.empty(0), np.empty(0), np.empty(0), np.empty(0))
-    columns = np.asarray(rows).T
-    return AmplitudeWindows(columns[0], columns[1], columns[2], columns[3])
 
 
 def damping_by_halves(peaks: Peaks) -> tuple[EnvelopeFit, EnvelopeFit] | None:

@@ -5,7 +5,7 @@ API
 ``read_record(path, time_column=None, signal_column=None, sample_rate=None, signal_unit=None)``
 returns a :class:`Record` with a uniform ``time`` (s), the ``signal`` in SI (m/s^2, m/s or m;
 as in the file when no unit is known), ``sample_rate`` (Hz), ``notes`` (how the file was read),
-``channel_name``, ``quantity`` ("acceleration", "velocity", "length" or "") and ``columns``.
+``channel_name``, ``kind`` ("acceleration", "velocity", "length" or "") and ``columns``.
 
 - Text with or without header and comment lines (``#``, ``%``, ``//``), blank lines, separated
   by commas, semicolons, tabs or spaces; decimal commas where the separator is not a comma.
@@ -35,9 +35,9 @@ from pathlib import Path
 
 import numpy as np
 
-from calc import recordlayout as layout_mod
-from calc.recordlayout import Layout, RecordError, cells_of
-from calc.units import InputError, read
+from fieldmode.calc.framework.units import InputError, read
+from fieldmode.calc.records import layout as layout_mod
+from fieldmode.calc.records.layout import Layout, RecordError, cells_of
 
 MAX_FILE_BYTES = 256 * 1024 * 1024
 """Largest file read (bytes): about 10 million rows of two columns."""
@@ -59,20 +59,16 @@ _UNIT_IN_NAME = re.compile(r"[\[(]\s*([^\])]+?)\s*[\])]\s*$")
 
 @dataclass(frozen=True)
 class Record:
-    """A uniformly sampled record: time (s), signal (SI of ``quantity``), and how it was read."""
+    """A uniformly sampled record: time (s), signal (SI of its ``kind``), and how it was read."""
 
     time: np.ndarray
     signal: np.ndarray
     sample_rate: float
     notes: tuple[str, ...]
     channel_name: str
-    quantity: str
+    kind: str
+    """Physical kind of the signal: 'acceleration', 'velocity', 'length', or '' when its unit is unknown."""
     columns: tuple[str, ...]
-
-    @property
-    def duration(self) -> float:
-        """Length of the record in s."""
-        return float(self.time[-1] - self.time[0])
 
 
 def read_record(path: str | os.PathLike[str], time_column: int | str | None = None,
@@ -114,10 +110,10 @@ def read_record(path: str | os.PathLike[str], time_column: int | str | None = No
     else:
         scale = _time_scale(names[time_index], notes)
         time, signal, fs = _uniform(layout, used, data[:, 0] * scale, signal, notes)
-    quantity, factor = _signal_unit(signal_unit, names[signal_index], notes)
+    kind, factor = _signal_unit(signal_unit, names[signal_index], notes)
     if factor != 1.0:
         signal = signal * factor
-    return Record(time, signal, fs, tuple(notes), names[signal_index], quantity, names)
+    return Record(time, signal, fs, tuple(notes), names[signal_index], kind, names)
 
 
 def _column(layout: Layout, wanted: int | str, what: str) -> int:

@@ -9,7 +9,7 @@ import math
 from collections.abc import Sequence
 from dataclasses import dataclass
 
-from calc.units import STANDARD_GRAVITY
+from fieldmode.calc.physics.constants import STANDARD_GRAVITY
 
 
 @dataclass(frozen=True)

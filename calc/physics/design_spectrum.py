@@ -1,4 +1,4 @@
-"""Building period and code spectra: EN 1998-1 elastic and design spectra, approximate periods.
+"""The EN 1998-1 horizontal elastic and design response spectra.
 
 All functions take and return SI magnitudes (m, s, m/s^2); damping is a ratio (0.05 for 5 %).
 Spectrum functions are vectorised over arrays of periods.
@@ -13,16 +13,6 @@ import numpy as np
 
 GROUND_TYPES = ("A", "B", "C", "D", "E")
 SPECTRUM_TYPES = ("1", "2")
-SYSTEMS = ("steel-moment-frame", "concrete-moment-frame", "steel-eccentric-braced", "other")
-
-EN_CT = {"steel-moment-frame": 0.085, "concrete-moment-frame": 0.075,
-         "steel-eccentric-braced": 0.075, "other": 0.050}
-"""EN 1998-1:2004 4.3.3.2.2(3): Ct for T1 = Ct H^(3/4), H in m."""
-EN_HEIGHT_LIMIT = 40.0
-"""EN 1998-1:2004 4.3.3.2.2(3): the period formula is for buildings up to 40 m high."""
-ASCE_CT = {"steel-moment-frame": (0.0724, 0.8), "concrete-moment-frame": (0.0466, 0.9),
-           "steel-eccentric-braced": (0.0731, 0.75), "other": (0.0488, 0.75)}
-"""ASCE 7-16 Table 12.8-2, SI column: (Ct, x) for Ta = Ct hn^x, hn in m."""
 
 EN_TABLE_3_2 = {"A": (1.0, 0.15, 0.4, 2.0), "B": (1.2, 0.15, 0.5, 2.0), "C": (1.15, 0.20, 0.6, 2.0),
                 "D": (1.35, 0.20, 0.8, 2.0), "E": (1.4, 0.15, 0.5, 2.0)}
@@ -107,14 +97,3 @@ def branch(period: float, shape: SpectrumShape) -> str:
 def spectral_displacement(acceleration: np.ndarray | float, period: np.ndarray | float) -> np.ndarray:
     """Spectral displacement SDe = Se (T / 2 pi)^2 in m (EN 1998-1 3.2.2.4, eq. 3.7)."""
     return np.asarray(acceleration) * (np.asarray(period) / (2.0 * math.pi)) ** 2
-
-
-def period_en1998(height: float, system: str) -> float:
-    """Approximate fundamental period T1 = Ct H^(3/4) in s (EN 1998-1 4.3.3.2.2(3)); H in m."""
-    return EN_CT[system] * height**0.75
-
-
-def period_asce7(height: float, system: str) -> float:
-    """Approximate fundamental period Ta = Ct hn^x in s (ASCE 7-16 12.8.2.1, eq. 12.8-7, SI); hn in m."""
-    ct, exponent = ASCE_CT[system]
-    return ct * height**exponent

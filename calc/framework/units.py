@@ -8,16 +8,17 @@ exponents and overlong text are refused instead of computed.
 
 from __future__ import annotations
 
+import functools
 import math
 import re
 import tokenize
 from dataclasses import dataclass
-from typing import Any
 
 import numpy as np
 import pint
 
-from calc.kinds import KINDS, Kind
+from fieldmode.calc.framework.kinds import KINDS, Kind
+from fieldmode.calc.physics.constants import STANDARD_GRAVITY
 
 ureg: pint.UnitRegistry
 try:
@@ -26,9 +27,6 @@ except OSError:  # no writable cache folder: build the registry in memory
     ureg = pint.UnitRegistry()
 Q_ = ureg.Quantity
 Quantity = pint.Quantity
-
-STANDARD_GRAVITY = 9.80665
-"""Standard gravity g0 in m/s^2 (3rd CGPM, 1901; NIST SP 811)."""
 
 MAX_TEXT = 60
 """Longest text accepted in one field (characters)."""
@@ -151,8 +149,8 @@ def _read_other_dimension(text: str, name: str, quantity: pint.Quantity, unit_te
     """Accept a weight where a mass is asked, or lb meant as lbf; refuse the rest."""
     if spec.weight_of and quantity.check(spec.weight_of):
         mass = (quantity / Q_(STANDARD_GRAVITY, "m/s^2")).to(spec.si)
-        shown = format_quantity(mass, spec.name)
-        return Reading(text, mass, spec.name, f"read as weight: m = W/g0 = {shown}")
+        as_mass = format_value(float(mass.magnitude), spec.name)
+        return Reading(text, mass, spec.name, f"read as weight: m = W/g0 = {as_mass}")
     if re.search(r"\blb\b", unit_text):
         swapped = re.sub(r"\blb\b", "lbf", unit_text)
         units = _safe_units(text, name, swapped, spec)
@@ -218,48 +216,47 @@ def format_number(value: float, digits: int = 4) -> str:
     return f"{value:.{digits - 1}e}"
 
 
-def display_unit(quantity: pint.Quantity, kind: str, system: str = "si") -> str:
-    """Choose the display unit of ``kind`` in ``system`` ("si" or "us") for this value."""
+@functools.lru_cache(maxsize=256)
+def unit_factor(unit: str, kind: str) -> float:
+    """Magnitude in ``unit`` of one SI unit of ``kind`` (e.g. 1000 for 'mm' of a length)."""
+    return float(Q_(1.0, KINDS[kind].si).to(unit).magnitude)
+
+
+def display_unit(si: float | np.ndarray, kind: str, system: str = "si") -> str:
+    """The display unit of ``kind`` in ``system`` ("si" or "us") for an SI magnitude (or array).
+
+    The first unit of the kind's list in which the largest finite value is at least 1.
+    """
     choices = KINDS[kind].display[system]
-    magnitudes = [abs(m) for m in _flat(quantity.to(KINDS[kind].si).magnitude)]
-    magnitude = max((m for m in magnitudes if math.isfinite(m)), default=0.0)
+    magnitudes = np.abs(np.ravel(np.asarray(si, dtype=float)))
+    finite = magnitudes[np.isfinite(magnitudes)]
+    magnitude = float(finite.max()) if finite.size else 0.0
     for unit in choices:
-        if magnitude >= Q_(1, unit).to(KINDS[kind].si).magnitude * 0.9999:
+        if magnitude * unit_factor(unit, kind) >= 0.9999:
             return unit
     return choices[-1]
 
 
-def format_quantity(quantity: pint.Quantity, kind: str, system: str = "si", digits: int = 4) -> str:
-    """Format a quantity of ``kind`` in the engineering unit of ``system``, e.g. '24.17 Hz'.
+def unit_name(unit: str, kind: str) -> str:
+    """How a display unit is written for people, e.g. 'g0' -> 'g', 'kN*s/m' -> 'kN s/m'."""
+    return KINDS[kind].names.get(unit, unit)
+
+
+def format_value(si: float | np.ndarray, kind: str, system: str = "si", digits: int = 4) -> str:
+    """An SI magnitude of ``kind`` in the engineering unit of ``system``, e.g. '24.17 Hz'.
 
     An array is shown as a comma list in one unit chosen by its largest value, e.g.
     '0.51, 0.20, 0.14 s'; a two-dimensional array as rows separated by '; '.
     """
-    unit = display_unit(quantity, kind, system)
-    magnitude = quantity.to(unit).magnitude
-    shown_unit = KINDS[kind].names.get(unit, unit)
-    rows = magnitude if getattr(magnitude, "ndim", 0) == 2 else [magnitude]
+    unit = display_unit(si, kind, system)
+    magnitude = np.asarray(si, dtype=float) * unit_factor(unit, kind)
+    rows = magnitude if magnitude.ndim == 2 else [magnitude]
 
-    def shown(v: float) -> str:
+    def one(v: float) -> str:
         return f"{v:.0f}" if KINDS[kind].integer else format_number(v, digits)
 
-    texts = (", ".join(shown(v) for v in _flat(row)) for row in rows)
-    return "; ".join(f"{text} {shown_unit}".rstrip() for text in texts)
-
-
-def _flat(magnitude: Any) -> list[float]:
-    """The numbers of a scalar or array magnitude, in order."""
-    return [float(v) for v in np.ravel(magnitude)]
-
-
-def to_si(quantity: pint.Quantity, kind: str) -> float:
-    """Magnitude of ``quantity`` in the SI unit of ``kind``."""
-    return float(quantity.to(KINDS[kind].si).magnitude)
-
-
-def si_quantity(value: float | np.ndarray, kind: str) -> pint.Quantity:
-    """Wrap an SI magnitude (float or array) as a quantity of ``kind``."""
-    return Q_(value, KINDS[kind].si)
+    texts = (", ".join(one(float(v)) for v in np.ravel(row)) for row in rows)
+    return "; ".join(f"{text} {unit_name(unit, kind)}".rstrip() for text in texts)
 
 
 def convert(text: str, target: str | None = None) -> tuple[pint.Quantity, str]:

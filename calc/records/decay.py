@@ -24,18 +24,16 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
-from calc import fourier
-from calc.envelope import (
-    AmplitudeWindows,
+from fieldmode.calc.framework.result import Flag
+from fieldmode.calc.records import fourier
+from fieldmode.calc.records.envelope import (
     EnvelopeFit,
     Peaks,
-    damping_by_amplitude,
     damping_by_halves,
     damping_from_sigma,
     fit_envelope,
     pick_peaks,
 )
-from calc.result import Flag
 
 MIN_SAMPLES = 64
 """Fewest samples analysed."""
@@ -95,7 +93,6 @@ class Decay:
     initial_amplitude: float
     noise_rms: float
     band: tuple[float, float] | None
-    amplitude_windows: AmplitudeWindows
     halves: tuple[EnvelopeFit, EnvelopeFit] | None
     """Envelope fits over the larger and the smaller half of the peaks (None under 8 peaks)."""
     flags: tuple[Flag, ...]
@@ -152,7 +149,6 @@ def analyse(time: np.ndarray, signal: np.ndarray, fs: float, band: tuple[float, 
     decrement, zeta = damping_from_sigma(fit.sigma, damped)
     zeta_low = max(0.0, damping_from_sigma(fit.sigma_low, damped)[1])
     zeta_high = damping_from_sigma(fit.sigma_high, damped)[1]
-    windows = damping_by_amplitude(peaks, damped)
     cycles = (end - start) * damped
     natural = damped / math.sqrt(1.0 - zeta**2) if 0 <= zeta < 1 else damped
     halves = damping_by_halves(peaks)
@@ -161,9 +157,8 @@ def analyse(time: np.ndarray, signal: np.ndarray, fs: float, band: tuple[float, 
     series = _series(time, x, processed, impact, i_end, peaks, fit, line, look, fs)
     for name in ("signal", "peak_amplitude", "envelope", "amplitude_spectrum"):
         series[name] = series[name] * scale
-    windows = AmplitudeWindows(windows.amplitude * scale, windows.damping_ratio, windows.low, windows.high)
     return Decay(natural, damped, line.frequency, crossing, zeta, zeta_low, zeta_high, decrement, cycles, fit,
-                 line, start, end, float(abs(peaks.amplitude[0])) * scale, noise * scale, chosen, windows, halves,
+                 line, start, end, float(abs(peaks.amplitude[0])) * scale, noise * scale, chosen, halves,
                  tuple(flags), series)
 
 

@@ -1,10 +1,9 @@
-"""Ground motion records: baseline correction, peak ground values, and the invented demo record.
+"""The invented demo accelerogram: filtered white noise under an envelope, from a fixed seed.
 
-The demo accelerogram is filtered white noise under an envelope, from a fixed seed; no recorded
-earthquake is used. Gaussian white noise (numpy PCG64, seed ``SEED``) is passed
+No recorded earthquake is used. Gaussian white noise (numpy PCG64, seed ``SEED``) is passed
 through a Kanai-Tajimi ground filter and a Clough-Penzien high-pass filter, multiplied by a
 Saragoni-Hart type envelope, baseline-corrected and scaled to a peak of ``PEAK_G`` g.
-Regenerate the shipped file with ``python -m calc.groundmotion [PATH]``.
+Regenerate the shipped file with ``python -m fieldmode.calc.demo.ground_motion [PATH]``.
 """
 
 from __future__ import annotations
@@ -16,13 +15,13 @@ from pathlib import Path
 
 import numpy as np
 
-from calc.shipped import shipped_file
+from fieldmode.calc.demo import GROUND_MOTION
+from fieldmode.calc.records.accelerogram import baseline_corrected
 
 SEED = 4117
 """Seed of the demo noise (invented)."""
 PEAK_G = 0.18
 """Peak of the demo record in g (about ag S of the demo site: 0.16 g x 1.15)."""
-DEMO_FILE = "ground_motion_demo.csv"
 
 
 @dataclass(frozen=True)
@@ -65,40 +64,6 @@ def synthetic_motion(parameters: MotionParameters = MotionParameters(), seed: in
     return time, acceleration * (peak_g / np.max(np.abs(acceleration)))
 
 
-def baseline_corrected(acc: np.ndarray, dt: float) -> np.ndarray:
-    """Acceleration (m/s^2) less the baseline: the derivative c1 + 2 c2 t of the least-squares fit
-    c1 t + c2 t^2 to the velocity (velocity by the trapezoid rule, zero at the first sample)."""
-    acc = np.asarray(acc, dtype=float)
-    t = np.arange(len(acc)) * dt
-    velocity = _cumulative(acc, dt)
-    basis = np.stack([t, t**2], axis=1)
-    (c1, c2), *_ = np.linalg.lstsq(basis, velocity, rcond=None)
-    return acc - (c1 + 2.0 * c2 * t)
-
-
-def _cumulative(acc: np.ndarray, dt: float) -> np.ndarray:
-    """Velocity (m/s) of a piecewise-linear acceleration, zero at the first sample (trapezoid rule, exact)."""
-    return np.concatenate([[0.0], np.cumsum((acc[1:] + acc[:-1]) * (0.5 * dt))])
-
-
-def ground_peaks(acc: np.ndarray, dt: float) -> tuple[float, float, float]:
-    """Peak ground acceleration (m/s^2), velocity (m/s) and displacement (m) of ``acc`` as given.
-
-    Velocity by the trapezoid rule and displacement by exact integration of the piecewise-linear
-    acceleration, both from rest at the first sample.
-    """
-    acc = np.asarray(acc, dtype=float)
-    velocity = _cumulative(acc, dt)
-    increments = velocity[:-1] * dt + (2.0 * acc[:-1] + acc[1:]) * (dt * dt / 6.0)
-    displacement = np.concatenate([[0.0], np.cumsum(increments)])
-    return float(np.max(np.abs(acc))), float(np.max(np.abs(velocity))), float(np.max(np.abs(displacement)))
-
-
-def demo_path() -> str:
-    """Path of the shipped demo accelerogram."""
-    return str(shipped_file(DEMO_FILE))
-
-
 def demo_text(parameters: MotionParameters = MotionParameters()) -> str:
     """The demo file's text: comment lines with its parameters, a header, then time and acceleration."""
     time, acceleration = synthetic_motion(parameters)
@@ -109,7 +74,7 @@ def demo_text(parameters: MotionParameters = MotionParameters()) -> str:
         f"damping {parameters.highpass_damping}",
         f"# envelope (t/tp)^b exp(b(1-t/tp)), tp {parameters.envelope_peak_time} s, "
         f"b {parameters.envelope_shape}; baseline-corrected; peak {PEAK_G} g",
-        "# regenerate: python -m calc.groundmotion",
+        "# regenerate: python -m fieldmode.calc.demo.ground_motion",
         "time [s],ground acceleration [g]",
     ]
     lines += [f"{t:.2f},{a:.6f}" for t, a in zip(time, acceleration, strict=True)]
@@ -118,7 +83,7 @@ def demo_text(parameters: MotionParameters = MotionParameters()) -> str:
 
 def main(argv: list[str]) -> int:
     """Write the demo accelerogram to ``argv[0]`` or to the package's data folder."""
-    target = Path(argv[0]) if argv else Path(__file__).parent / "data" / DEMO_FILE
+    target = Path(argv[0]) if argv else Path(__file__).parent / "data" / GROUND_MOTION
     target.write_text(demo_text(), encoding="utf-8")
     print(f"wrote {target}")
     return 0

@@ -1,23 +1,21 @@
-"""Declarative check specs: the one description that drives the command line and the app.
+"""Reading a check's typed texts: every field read by the unit reader, and :class:`Inputs`.
 
-A check is declared once as a :class:`CheckSpec`: its fields (name, label, physical
-kind, demo text, alternatives) and a compute function that takes :class:`Inputs`
-(every field read and in SI) and returns a :class:`~calc.result.Result`.
+A compute function gets :class:`Inputs`: the fields read and in SI, with bounds checks that
+raise an :class:`~fieldmode.calc.framework.units.InputError` naming the field.
 """
 
 from __future__ import annotations
 
 import math
 import re
-from collections.abc import Callable, Mapping
-from dataclasses import dataclass, field
+from collections.abc import Mapping
 
 import numpy as np
 
-from calc.fields import CheckOutline, Field
-from calc.kinds import KINDS
-from calc.result import CAUTION, Flag, InputRecord, Reference, Result, Value
-from calc.units import InputError, Reading, read, si_quantity
+from fieldmode.calc.framework.kinds import KINDS
+from fieldmode.calc.framework.result import Flag, Reference, Result, TypedInput, Value
+from fieldmode.calc.framework.spec import SIGNAL, CheckSpec, Field
+from fieldmode.calc.framework.units import InputError, Reading, read
 
 MAX_LIST_TEXT = 2000
 """Longest text accepted in a list field (characters)."""
@@ -26,66 +24,40 @@ MAX_LIST_ITEMS = 200
 _BARE_NUMBER = re.compile(r"^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$")
 
 
-@dataclass(frozen=True)
-class CheckSpec:
-    """A check: its identity, its fields, and the function that computes it."""
+def read_inputs(spec: CheckSpec, texts: Mapping[str, str]) -> tuple[Inputs, dict[str, InputError]]:
+    """Read every field of ``spec``; return what was read and the errors by field name."""
+    readings: dict[str, Reading | tuple[Reading, ...] | str] = {}
+    errors: dict[str, InputError] = {}
+    for spec_field in spec.fields:
+        text = (texts.get(spec_field.name) or "").strip()
+        if not text:
+            continue
+        try:
+            readings[spec_field.name] = read_field(spec_field, text)
+        except InputError as error:
+            errors[spec_field.name] = error
+    _check_groups(spec, readings, errors)
+    return Inputs(spec, readings, dict(texts)), errors
 
-    id: str
-    title: str
-    summary: str
-    fields: tuple[Field, ...]
-    compute: Callable[[Inputs], Result]
-    caution: str = CAUTION
-    sends: Mapping[str, str] = field(default_factory=dict)
-    """Result name -> field name it can fill in other checks (e.g. 'stiffness' -> 'stiffness')."""
 
-    def field(self, name: str) -> Field:
-        return next(f for f in self.fields if f.name == name)
+def _check_groups(spec: CheckSpec, readings: Mapping[str, object], errors: dict[str, InputError]) -> None:
+    """Errors for required fields left empty and for groups of alternatives given twice or not at all."""
+    groups: dict[str, list[Field]] = {}
+    for spec_field in spec.fields:
+        if spec_field.group:
+            groups.setdefault(spec_field.group, []).append(spec_field)
+        elif spec_field.required and spec_field.name not in readings and spec_field.name not in errors:
+            errors[spec_field.name] = InputError(spec_field.label, "", "required", _example(spec_field))
+    for members in groups.values():
+        given = [f for f in members if f.name in readings or f.name in errors]
+        names = " or ".join(f.label.lower() for f in members)
+        if not given and any(f.required for f in members):
+            errors[members[0].name] = InputError(members[0].label, "", f"give {names}",
+                                                 _example(members[0]))
+        elif len(given) > 1:
+            errors[given[-1].name] = InputError(given[-1].label, "", f"give only one of {names}")
 
-    def demo_texts(self) -> dict[str, str]:
-        return {f.name: f.default for f in self.fields}
 
-    def outline(self) -> CheckOutline:
-        """The check without its compute function (what a screen shows before the core is loaded)."""
-        return CheckOutline(self.id, self.title, self.summary, self.fields, self.caution, dict(self.sends))
-
-    def read(self, texts: Mapping[str, str]) -> tuple[Inputs, dict[str, InputError]]:
-        """Read every field; return what was read and the errors by field name."""
-        readings: dict[str, Reading | tuple[Reading, ...] | str] = {}
-        errors: dict[str, InputError] = {}
-        for spec_field in self.fields:
-            text = (texts.get(spec_field.name) or "").strip()
-            if not text:
-                continue
-            try:
-                readings[spec_field.name] = read_field(spec_field, text)
-            except InputError as error:
-                errors[spec_field.name] = error
-        self._check_groups(readings, errors)
-        return Inputs(self, readings, dict(texts)), errors
-
-    def evaluate(self, texts: Mapping[str, str]) -> Result:
-        """Read the texts and compute; raise the first :class:`InputError` found."""
-        inputs, errors = self.read(texts)
-        if errors:
-            raise next(iter(errors.values()))
-        return self.compute(inputs)
-
-    def _check_groups(self, readings: Mapping[str, object], errors: dict[str, InputError]) -> None:
-        groups: dict[str, list[Field]] = {}
-        for spec_field in self.fields:
-            if spec_field.group:
-                groups.setdefault(spec_field.group, []).append(spec_field)
-            elif spec_field.required and spec_field.name not in readings and spec_field.name not in errors:
-                errors[spec_field.name] = InputError(spec_field.label, "", "required", _example(spec_field))
-        for members in groups.values():
-            given = [f for f in members if f.name in readings or f.name in errors]
-            names = " or ".join(f.label.lower() for f in members)
-            if not given and any(f.required for f in members):
-                errors[members[0].name] = InputError(members[0].label, "", f"give {names}",
-                                                     _example(members[0]))
-            elif len(given) > 1:
-                errors[given[-1].name] = InputError(given[-1].label, "", f"give only one of {names}")
 
 
 def _example(spec_field: Field) -> str:
@@ -164,6 +136,10 @@ class Inputs:
     def has(self, name: str) -> bool:
         return name in self._readings
 
+    def reading(self, name: str) -> Reading | tuple[Reading, ...] | str:
+        """How field ``name`` was read: a quantity, a list of them, or a choice or path as text."""
+        return self._readings[name]
+
     def value(self, name: str, *, positive: bool = False, minimum: float | None = None,
               maximum: float | None = None) -> float:
         """SI magnitude of a single-quantity field, checked against the bounds given."""
@@ -209,41 +185,46 @@ class Inputs:
         if maximum is not None and magnitude > maximum:
             raise InputError(spec_field.label, text, f"must be at most {maximum:g} (SI)", _example(spec_field))
 
-    def records(self) -> dict[str, InputRecord]:
+    def typed(self) -> dict[str, TypedInput]:
         """Inputs as typed and as read, for the result and the calc record."""
-        records: dict[str, InputRecord] = {}
+        typed: dict[str, TypedInput] = {}
         for name, reading in self._readings.items():
             kind = self.spec.field(name).kind
             if isinstance(reading, Reading):
-                records[name] = InputRecord(reading.text, reading.si, KINDS[kind].si or "1", reading.note)
+                typed[name] = TypedInput(reading.text, reading.si, KINDS[kind].si or "1", reading.note)
             elif isinstance(reading, tuple):
-                records[name] = InputRecord(self._texts.get(name, ""), None, KINDS[kind].si or "1",
-                                            "; ".join(r.note for r in reading if r.note))
+                typed[name] = TypedInput(self._texts.get(name, ""), None, KINDS[kind].si or "1",
+                                         "; ".join(r.note for r in reading if r.note))
             else:
-                records[name] = InputRecord(reading, None, None)
-        return records
+                typed[name] = TypedInput(reading, None, None)
+        return typed
 
     def notes(self) -> tuple[Flag, ...]:
         """Flags for how inputs were read: a suspicious bare ratio is a caution, the rest info."""
         flags = []
-        for name, record in self.records().items():
-            if record.note:
-                level = "caution" if record.note.startswith("did you mean") else "info"
-                flags.append(Flag(level, f"{self.spec.field(name).label}: {record.note}"))  # type: ignore[arg-type]
+        for name, typed in self.typed().items():
+            if typed.note:
+                level = "caution" if typed.note.startswith("did you mean") else "info"
+                flags.append(Flag(level, f"{self.spec.field(name).label}: {typed.note}"))  # type: ignore[arg-type]
         return tuple(flags)
 
     def result(self, values: Mapping[str, Value], *, series: Mapping[str, np.ndarray] | None = None,
-               flags: tuple[Flag, ...] = (), references: tuple[Reference, ...] = ()) -> Result:
-        """Build this check's :class:`Result`, adding input notes to the flags."""
-        return Result(self.spec.id, self.records(), dict(values), dict(series or {}),
-                      self.notes() + tuple(flags), references, self.spec.caution)
+               flags: tuple[Flag, ...] = (), references: tuple[Reference, ...] = (),
+               signal_kind: str | None = None) -> Result:
+        """Build this check's :class:`Result`, adding input notes to the flags.
 
-
-def quantity(label: str, kind: str, si_value: float | np.ndarray) -> Value:
-    """A result value from an SI magnitude, e.g. ``quantity('Natural frequency', 'frequency', 4.1)``."""
-    return Value(label, kind, si_quantity(si_value, kind))
-
-
-def word(label: str, text: str) -> Value:
-    """A result that is a word, such as the damping regime."""
-    return Value(label, "number", text)
+        ``signal_kind`` is the physical kind of the record's signal, for curves declared as
+        :data:`~fieldmode.calc.framework.spec.SIGNAL`. Raises ValueError for a curve the spec does
+        not declare (a bug in the check).
+        """
+        made = dict(series or {})
+        kinds: dict[str, str] = {}
+        for name in made:
+            kind = self.spec.series_kind(name)  # KeyError: a curve the check does not declare
+            if kind == SIGNAL:
+                if signal_kind is None:
+                    raise ValueError(f"check {self.spec.id}: series {name} needs the record's signal kind")
+                kind = signal_kind
+            kinds[name] = kind
+        return Result(self.spec.id, self.typed(), dict(values), made, self.notes() + tuple(flags), references,
+                      self.spec.caution, kinds)

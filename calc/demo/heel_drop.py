@@ -4,7 +4,7 @@ Scenario (invented): a heel drop on the steel mezzanine of the Lowmoor bottling 
 by an accelerometer at mid-bay. Two modes respond to a 50 ms half-sine heel force; an offset and
 white noise are added. Regenerate the file with::
 
-    python -m calc.demo_records            # writes calc/data/heel_drop_demo.csv
+    python -m fieldmode.calc.demo.heel_drop     # writes calc/demo/data/heel_drop_demo.csv
 
 Only numpy is used, so the file is the same wherever it is regenerated (a test checks it).
 """
@@ -18,9 +18,7 @@ from pathlib import Path
 
 import numpy as np
 
-from calc.shipped import shipped_file
-
-DEMO_FILE = "heel_drop_demo.csv"
+from fieldmode.calc.demo import HEEL_DROP
 
 
 @dataclass(frozen=True)
@@ -40,11 +38,6 @@ class HeelDrop:
     offset: float = 0.045
     noise: float = 0.003
     seed: int = 4721
-
-
-def demo_path() -> Path:
-    """Absolute path of the shipped demo record."""
-    return shipped_file(DEMO_FILE)
 
 
 def _mode_acceleration(t: np.ndarray, force: np.ndarray, dt: float, frequency: float, damping: float) -> np.ndarray:
@@ -87,7 +80,7 @@ def demo_text(params: HeelDrop = HeelDrop()) -> str:
     lines = ["# Lowmoor bottling hall, mezzanine bay 2: heel drop at mid-bay (generated demo record)",
              f"# invented: {params.frequency} Hz at {params.damping:.1%}, second mode {params.second_frequency} Hz, "
              f"offset {params.offset} m/s^2, noise {params.noise} m/s^2 RMS, seed {params.seed}",
-             "# regenerate: python -m calc.demo_records",
+             "# regenerate: python -m fieldmode.calc.demo.heel_drop",
              "time [s],acceleration [m/s^2]"]
     lines += [f"{t:.3f},{a:.5f}" for t, a in zip(time, acceleration, strict=True)]
     return "\n".join(lines) + "\n"
@@ -95,7 +88,7 @@ def demo_text(params: HeelDrop = HeelDrop()) -> str:
 
 def main() -> int:
     """Write the demo record into the package's data folder."""
-    path = Path(__file__).resolve().parent / "data" / DEMO_FILE
+    path = Path(__file__).resolve().parent / "data" / HEEL_DROP
     path.parent.mkdir(exist_ok=True)
     path.write_text(demo_text(), encoding="utf-8")
     print(f"wrote {path}")

@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from calc.spec import Field
+from fieldmode.calc.framework.spec import Field
 
 RECORD_COLUMN_FIELDS = (
     Field("time_column", "Time column", "text", "", required=False,

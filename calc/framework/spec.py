@@ -1,0 +1,124 @@
+"""Declarative checks: the one description that drives the command line and the app.
+
+A check is declared once as a :class:`CheckSpec`: its fields (name, label, physical kind, demo
+text, alternatives), the curves it makes (:class:`Series`) and a compute function that takes
+:class:`~fieldmode.calc.framework.reading.Inputs` (every field read, in SI) and returns a
+:class:`~fieldmode.calc.framework.result.Result`.
+
+This module loads neither numpy nor pint, so the app can draw a check's fields before the
+core is loaded; reading typed text is in :mod:`fieldmode.calc.framework.reading`.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Callable, Mapping
+from dataclasses import dataclass, field
+from typing import TYPE_CHECKING
+
+from fieldmode.calc.framework.kinds import KINDS
+from fieldmode.calc.framework.result import CAUTION
+
+if TYPE_CHECKING:
+    from fieldmode.calc.framework.reading import Inputs
+    from fieldmode.calc.framework.result import Result
+    from fieldmode.calc.framework.units import InputError
+
+
+@dataclass(frozen=True)
+class Field:
+    """One input of a check.
+
+    ``kind`` is a key of :data:`fieldmode.calc.framework.kinds.KINDS`, or ``"choice"`` (one of ``choices``),
+    ``"path"`` (a file) or ``"text"`` (free text the check reads itself, e.g. a column
+    name). ``unit`` is the unit a bare number takes and is shown in the label. Fields
+    sharing a ``group`` are alternatives: exactly one is given. ``many`` makes it a
+    comma-separated list (numbers separated by blanks, '5 10 Hz', are items too).
+    ``shared`` fields carry their value to other checks of a session that have a field
+    of the same name.
+    """
+
+    name: str
+    label: str
+    kind: str
+    default: str = ""
+    unit: str | None = None
+    required: bool = True
+    group: str | None = None
+    choices: tuple[str, ...] = ()
+    many: bool = False
+    shared: bool = False
+    positional: bool = False
+    help: str = ""
+
+    @property
+    def option(self) -> str:
+        """Command-line option, e.g. '--static-deflection'."""
+        return "--" + self.name.replace("_", "-")
+
+    @property
+    def label_with_unit(self) -> str:
+        """Label with its unit, e.g. 'Stiffness (kN/mm)'."""
+        unit = self.unit if self.unit is not None else (KINDS[self.kind].si if self.kind in KINDS else "")
+        return f"{self.label} ({unit})" if unit else self.label
+
+
+SIGNAL = "signal"
+"""Series kind of a curve in the unit of the record a check read (acceleration, velocity, length,
+or a plain number when the record's unit is unknown); the check names it when it computes."""
+
+
+@dataclass(frozen=True)
+class Series:
+    """A curve a check makes: its name (the key in ``Result.series``), label and physical kind.
+
+    Values are SI magnitudes of the kind (or of the record's signal, :data:`SIGNAL`); ``against``
+    names the series it is a function of (None for an abscissa such as a time or period grid).
+    Charts, JSON and CSV read curves by these names only.
+    """
+
+    name: str
+    label: str
+    kind: str
+    against: str | None = None
+
+
+@dataclass(frozen=True)
+class CheckSpec:
+    """A check: its identity, its fields, and the function that computes it."""
+
+    id: str
+    title: str
+    summary: str
+    fields: tuple[Field, ...]
+    compute: Callable[[Inputs], Result]
+    caution: str = CAUTION
+    sends: Mapping[str, str] = field(default_factory=dict)
+    """Result name -> field name it can fill in other checks (e.g. 'stiffness' -> 'stiffness')."""
+    series: tuple[Series, ...] = ()
+    """Every curve the check can make; a result holds some or all of them."""
+
+    def field(self, name: str) -> Field:
+        return next(f for f in self.fields if f.name == name)
+
+    def demo_texts(self) -> dict[str, str]:
+        return {f.name: f.default for f in self.fields}
+
+    def series_kind(self, name: str) -> str:
+        """Physical kind of the curve ``name``; KeyError when the check declares no such curve."""
+        for curve in self.series:
+            if curve.name == name:
+                return curve.kind
+        raise KeyError(f"{self.id} declares no series {name!r}")
+
+    def read(self, texts: Mapping[str, str]) -> tuple[Inputs, dict[str, InputError]]:
+        """Read every field; return what was read and the errors by field name."""
+        from fieldmode.calc.framework.reading import read_inputs  # loads pint: not needed to draw fields
+
+        return read_inputs(self, texts)
+
+    def evaluate(self, texts: Mapping[str, str]) -> Result:
+        """Read the texts and compute; raise the first :class:`InputError` found."""
+        inputs, errors = self.read(texts)
+        if errors:
+            raise next(iter(errors.values()))
+        return self.compute(inputs)

@@ -1,0 +1,1 @@
+"""Measured records (time series): reading text files, and identifying what they hold."""

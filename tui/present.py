@@ -1,0 +1,89 @@
+"""The one presenter: how results, flags and readings are written for people and for fields.
+
+The command line, the app and the calc record all write values through these functions, so a
+value reads the same wherever it appears: 4 significant figures in an engineering unit of the
+chosen system (SI or US customary), a list in one unit, and SI with 6 figures where SI is asked.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+
+from fieldmode.calc.framework.kinds import KINDS
+from fieldmode.calc.framework.result import Flag, Value, si_unit
+from fieldmode.calc.framework.units import Reading, display_unit, format_value, unit_factor, unit_name
+
+LEVEL_MARKS: dict[str, str] = {"info": "i", "caution": "!", "warning": "!!"}
+"""A symbol per flag level, so meaning never rests on colour alone."""
+LEVEL_WORDS: dict[str, str] = {"info": "note", "caution": "caution", "warning": "WARNING"}
+"""Flag levels as words, written beside their mark."""
+MOST_READINGS = 4
+"""A list field's reading lists at most this many values."""
+
+
+def value_lines(value: Value, system: str, most: int | None = None) -> list[str]:
+    """A result in engineering units: one line, or one line per row of a table (mode shapes).
+
+    A list is written in one unit; with ``most`` it is cut after that many items and the
+    count is added ('0.57, 0.23 ... (12)').
+    """
+    if isinstance(value.magnitude, str):
+        return [value.magnitude]
+    magnitude = np.asarray(value.magnitude, dtype=float)
+    if magnitude.ndim == 1 and most is not None and magnitude.size > most:
+        return [format_value(magnitude[:most], value.kind, system) + f" ... ({magnitude.size})"]
+    return format_value(magnitude, value.kind, system).split("; ")
+
+
+def value_text(value: Value, system: str, most: int | None = None) -> str:
+    """A result in engineering units on one line (table rows separated by '; ')."""
+    return "; ".join(value_lines(value, system, most))
+
+
+def si_text(value: Value) -> str:
+    """A result in SI with 6 significant figures and its unit ('' for ratios), for the calc record."""
+    if isinstance(value.magnitude, str):
+        return value.magnitude
+    unit = "" if si_unit(value.kind) == "1" else f" {si_unit(value.kind)}"
+    numbers = np.ravel(np.asarray(value.magnitude, dtype=float))
+    return ", ".join(f"{number:.6g}" for number in numbers) + unit
+
+
+def typed_si_text(si: float | None, unit: str | None) -> str:
+    """An input's SI value as the calc record writes it ('' when the input has none)."""
+    if si is None:
+        return ""
+    return f"{si:.6g}" + ("" if unit in (None, "1") else f" {unit}")
+
+
+def field_text(si: float, kind: str, system: str) -> str:
+    """An SI magnitude as text to type into a field: 6 significant figures in an engineering unit."""
+    unit = display_unit(si, kind, system)
+    return f"{si * unit_factor(unit, kind):.6g} {unit_name(unit, kind)}".strip()
+
+
+def flag_heading(level: str) -> str:
+    """The mark and word of a flag level, e.g. '!  caution' (marks padded so the words line up)."""
+    return f"{LEVEL_MARKS[level]:<2} {LEVEL_WORDS[level]}"
+
+
+def flag_text(flag: Flag) -> str:
+    """A flag on one line: mark, level word, text ('!  caution: ...')."""
+    return f"{flag_heading(flag.level)}: {flag.text}"
+
+
+def reading_text(reading: Reading | tuple[Reading, ...] | str, system: str) -> str:
+    """How a field's text was read, e.g. '= 24.17 Hz' or 'read as weight: m = W/g0 = 12.00 t'."""
+    if isinstance(reading, str):
+        return f"= {reading}"
+    if isinstance(reading, tuple):
+        items = [format_value(r.si, r.kind, system) for r in reading]
+        if len(items) > MOST_READINGS:
+            return f"{len(items)} values: {items[0]} ... {items[-1]}"
+        return "= " + ", ".join(items)
+    if KINDS[reading.kind].integer:
+        return f"= {reading.si:.0f}"
+    if reading.note and "=" in reading.note:
+        return reading.note
+    written = "= " + format_value(reading.si, reading.kind, system)
+    return f"{written}; {reading.note}" if reading.note else written
