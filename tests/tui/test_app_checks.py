@@ -6,7 +6,7 @@ import asyncio
 import math
 
 import pytest
-from pilot_keys import flags_text, focus_field, note_of, screen_text, settle, type_into
+from helpers.pilot import flags_text, focus_field, note_of, screen_text, settle, type_into
 
 from fieldmode.calc.checks import SPECS
 from fieldmode.calc.typical_values import DAMPING

@@ -4,7 +4,7 @@ from __future__ import annotations
 
 import asyncio
 
-from pilot_keys import focus_field, settle
+from helpers.pilot import focus_field, settle
 from textual import events
 
 from fieldmode.calc.checks import SPECS

@@ -10,7 +10,7 @@ import os
 import signal
 
 import pytest
-from pilot_keys import focus_field, keys_for, note_of, screen_text, settle, type_into
+from helpers.pilot import focus_field, keys_for, note_of, screen_text, settle, type_into
 
 from fieldmode.calc.checks import SPECS, sdof
 from fieldmode.tui.present import field_text

@@ -5,7 +5,7 @@ from __future__ import annotations
 import asyncio
 from pathlib import Path
 
-from pilot_keys import settle
+from helpers.pilot import settle
 
 from fieldmode.calc.checks import SPECS
 from fieldmode.tui.evaluation import evaluate
