@@ -20,7 +20,7 @@ test: $(STAMP)
 	$(PY) -m pytest -q
 
 lint: $(STAMP)
-	$(VENV)/bin/ruff check calc tui tests
+	$(VENV)/bin/ruff check calc tui tests docs
 	mkdir -p $(TYPECHECK)/fieldmode
 	ln -sfn ../../../calc $(TYPECHECK)/fieldmode/calc
 	ln -sfn ../../../tui $(TYPECHECK)/fieldmode/tui
@@ -30,7 +30,7 @@ bench: $(STAMP)
 	$(PY) tests/bench/run.py
 
 docs: $(STAMP)
-	$(PY) -m fieldmode.tui.screenshots docs
+	$(PY) docs/screenshots.py docs
 
 clean:
 	rm -rf $(VENV) build *.egg-info

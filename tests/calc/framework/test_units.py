@@ -1,0 +1,217 @@
+"""The unit reader: conversion factors, the unit traps, refusals, and display in engineering units."""
+
+from __future__ import annotations
+
+import math
+import time
+
+import numpy as np
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from fieldmode.calc.framework.kinds import KINDS
+from fieldmode.calc.framework.units import InputError, convert, format_number, format_value, read
+
+# Source: NIST SP 811 (2008), Appendix B.8 and B.9 (exact or defining values)
+NIST_FACTORS = [
+    ("1 in", "length", 0.0254),
+    ("1 ft", "length", 0.3048),
+    ("1 lb", "mass", 0.45359237),
+    ("1 kip/in", "stiffness", 4448.2216152605 / 0.0254),
+    ("1 lbf/in", "stiffness", 4.4482216152605 / 0.0254),
+    ("1 psi", "modulus", 6894.757293168),
+    ("1 ksi", "modulus", 6894757.293168),
+    ("1 lbf*s/in", "damping_coefficient", 4.4482216152605 / 0.0254),
+    ("1 in^4", "second_moment", 0.0254**4),
+    ("1 g", "acceleration", 9.80665),  # Source: 3rd CGPM (1901), standard gravity
+]
+
+
+@pytest.mark.parametrize(("text", "kind", "si"), NIST_FACTORS)
+def test_conversion_factors_match_nist(text: str, kind: str, si: float) -> None:
+    assert read(text, kind).si == pytest.approx(si, rel=1e-12)
+
+
+# Common practice (no source): rotational speed is revolutions per minute; 1 rev/min = 1/60 Hz.
+@pytest.mark.parametrize(("text", "hz"), [
+    ("1450 rpm", 1450 / 60), ("1450 RPM", 1450 / 60), ("1450 r/min", 1450 / 60), ("600 cpm", 10.0),
+    ("24 rev/s", 24.0), ("24 rps", 24.0), ("24.17 Hz", 24.17), ("24.17", 24.17), ("1.2 kHz", 1200.0),
+])
+def test_rotational_speed_is_cycles_per_time(text: str, hz: float) -> None:
+    assert read(text, "frequency").si == pytest.approx(hz, rel=1e-12)
+
+
+def test_1450_rpm_is_24_17_hz_not_151_8() -> None:
+    # Common practice (no source): 1450 rpm / 60 = 24.17 Hz; pint's own rpm would give 2 pi times that.
+    assert format_value(read("1450 rpm", "frequency").si, "frequency") == "24.17 Hz"
+
+
+def test_angular_and_cyclic_frequency_convert_with_two_pi() -> None:
+    # Common practice (no source): omega = 2 pi f.
+    assert read("100 rad/s", "frequency").si == pytest.approx(100 / (2 * math.pi))
+    assert "angular" in read("100 rad/s", "frequency").note
+    assert read("1 Hz", "angular_frequency").si == pytest.approx(2 * math.pi)
+    assert read("60 rpm", "angular_frequency").si == pytest.approx(2 * math.pi)
+
+
+def test_g_is_standard_gravity_in_acceleration_fields() -> None:
+    # Source: NIST SP 811 (2008), standard acceleration of gravity g_n = 9.80665 m/s^2.
+    assert read("0.25 g", "acceleration").si == pytest.approx(2.4516625)
+    assert read("0.25 G", "acceleration").si == pytest.approx(2.4516625)
+
+
+def test_g_is_gram_in_an_unbalance_field() -> None:
+    # Common practice (no source): balance quality is quoted in g mm (gram millimetres).
+    assert read("120 g*mm", "unbalance").si == pytest.approx(120e-6)
+
+
+@pytest.mark.parametrize(("text", "kg"), [
+    ("117.7 kN", 117700 / 9.80665), ("50 kip", 50 * 4448.2216152605 / 9.80665),
+    ("5000 lbf", 5000 * 4.4482216152605 / 9.80665),
+])
+def test_weight_in_a_mass_field_is_read_as_w_over_g0(text: str, kg: float) -> None:
+    # Source: NIST SP 811 (2008), Appendix B.9; m = W / g_n.
+    reading = read(text, "mass")
+    assert reading.si == pytest.approx(kg, rel=1e-12)
+    assert reading.note.startswith("read as weight")
+
+
+def test_lb_is_pound_mass_and_says_so() -> None:
+    reading = read("26500 lb", "mass")
+    assert reading.si == pytest.approx(26500 * 0.45359237)  # Source: NIST SP 811 (2008), B.9
+    assert "pound-mass" in reading.note
+
+
+def test_ton_is_short_ton_and_says_so() -> None:
+    reading = read("2 ton", "mass")
+    assert reading.si == pytest.approx(2 * 907.18474)  # Source: NIST SP 811 (2008), B.9 ton (short)
+    assert "short ton" in reading.note
+    assert read("2 t", "mass").si == 2000.0
+
+
+def test_lb_in_a_stiffness_unit_is_read_as_lbf() -> None:
+    reading = read("300 lb/in", "stiffness")
+    assert reading.si == pytest.approx(300 * 4.4482216152605 / 0.0254)  # Source: NIST SP 811 (2008), B.9
+    assert "lbf" in reading.note
+
+
+@pytest.mark.parametrize(("text", "ratio", "flagged"), [
+    ("3 %", 0.03, False), ("0.03", 0.03, False), ("3", 3.0, True), ("100", 100.0, True), ("1", 1.0, False),
+])
+def test_ratios_accept_percent_and_fractions_and_flag_suspicious_bare_numbers(
+        text: str, ratio: float, flagged: bool) -> None:
+    reading = read(text, "ratio", "Damping ratio")
+    assert reading.si == pytest.approx(ratio)
+    assert ("did you mean" in reading.note) is flagged
+
+
+def test_bare_number_takes_the_field_unit() -> None:
+    assert read("42", "stiffness", "Stiffness", "kN/mm").si == pytest.approx(42e6)
+    assert read("9.6", "mass", "Mass", "t").si == pytest.approx(9600)
+
+
+# Both sides of each dimension check: the right kind is accepted, a wrong kind refused.
+@pytest.mark.parametrize(("kind", "good", "bad"), [
+    ("stiffness", ["8 kN/mm", "45 kip/in"], ["12 kg", "3 Hz", "8 kN"]),
+    ("mass", ["12 t", "26500 lb", "117.7 kN"], ["8 kN/mm", "3 m"]),
+    ("frequency", ["24 Hz", "1450 rpm"], ["3 s", "2 m"]),
+    ("acceleration", ["0.3 g", "2.5 m/s^2"], ["3 m/s", "2 kg"]),
+    ("ratio", ["3 %", "0.05"], ["3 m", "2 Hz"]),
+    ("modulus", ["210 GPa", "29000 ksi"], ["210 kN"]),
+])
+def test_dimension_checks_accept_and_refuse(kind: str, good: list[str], bad: list[str]) -> None:
+    for text in good:
+        read(text, kind)
+    for text in bad:
+        with pytest.raises(InputError):
+            read(text, kind)
+
+
+@pytest.mark.parametrize("text", [
+    "", "   ", "abc", "9**9**9 m", "1 m**9**9", "1 m^4^4", "1e400 m", "nan m", "inf m", "1e16 m",
+    "x" * 10_000, "1,5 m", "2 m; import os", "__import__('os')", "1 m**44", "1 ➗ m", "1 \x00 m",
+])
+def test_hostile_text_is_refused_quickly(text: str) -> None:
+    start = time.perf_counter()
+    with pytest.raises(InputError):
+        read(text, "length", "Span")
+    assert time.perf_counter() - start < 1.0  # a guard against a hang, not a performance goal
+
+
+def test_error_message_names_field_echoes_text_and_gives_example() -> None:
+    with pytest.raises(InputError) as caught:
+        read("12 kg", "stiffness", "Stiffness")
+    message = str(caught.value)
+    assert message.startswith("Stiffness:")
+    assert "'12 kg'" in message
+    assert "kN/mm" in message
+
+
+def test_input_error_is_a_value_error() -> None:
+    assert issubclass(InputError, ValueError)
+
+
+def test_whole_numbers_for_counts() -> None:
+    assert read("4", "count").si == 4
+    with pytest.raises(InputError):
+        read("2.5", "count")
+
+
+@pytest.mark.parametrize(("value", "text"), [
+    (24.1666, "24.17"), (1450.0, "1450"), (0.004, "0.004000"), (123456.0, "123456"), (1.5e-7, "1.500e-07"),
+    (-3.14159, "-3.142"), (0.0, "0"),
+    (0.09999999, "0.1000"), (9.99999, "10.00"), (999999.9, "1.000e+06"),
+])
+def test_four_significant_figures(value: float, text: str) -> None:
+    assert format_number(value) == text
+
+
+def test_us_customary_display() -> None:
+    assert format_value(read("45 kip/in", "stiffness").si, "stiffness", "us") == "45.00 kip/in"
+    assert format_value(read("0.25 g", "acceleration").si, "acceleration", "us") == "0.2500 g"
+
+
+def test_convert_command_core() -> None:
+    quantity, _ = convert("1450 rpm", "Hz")
+    assert quantity.magnitude == pytest.approx(24.1667, rel=1e-4)
+    quantity, _ = convert("45 kip/in")
+    assert quantity.magnitude == pytest.approx(45 * 4448.2216152605 / 0.0254)  # Source: NIST SP 811, B.9
+
+
+@settings(max_examples=300, deadline=None)
+@given(text=st.text(max_size=80), kind=st.sampled_from(sorted(KINDS)))
+def test_any_text_raises_only_input_error(text: str, kind: str) -> None:
+    try:
+        reading = read(text, kind, "Field")
+    except InputError:
+        return
+    assert math.isfinite(reading.si)
+
+
+@settings(max_examples=200, deadline=None)
+@given(number=st.floats(min_value=-1e12, max_value=1e12, allow_nan=False),
+       unit=st.sampled_from(["m", "mm", "kN/mm", "kip/in", "t", "lb", "Hz", "rpm", "g", "%", "", "m^2", "s"]),
+       kind=st.sampled_from(sorted(KINDS)))
+def test_numbers_with_units_raise_only_input_error(number: float, unit: str, kind: str) -> None:
+    try:
+        reading = read(f"{number!r} {unit}", kind, "Field")
+    except InputError:
+        return
+    assert math.isfinite(reading.si)
+
+
+def test_one_unit_for_the_whole_list_chosen_by_the_largest_value() -> None:
+    # Common practice (no source): one unit per list, 4 significant figures each
+    assert format_value(np.array([0.0191, 0.0359, 0.0474]), "length") == "19.10, 35.90, 47.40 mm"
+    assert format_value(np.array([0.5, 1.5]), "time") == "0.5000, 1.500 s"
+
+
+def test_rows_of_a_two_dimensional_array() -> None:
+    shown = format_value(np.array([[0.4, 1.0], [-1.0, 1.0]]), "number")
+    assert shown.split("; ") == ["0.4000, 1.000", "-1.000, 1.000"]
+
+
+def test_whole_numbers_and_scalars() -> None:
+    assert format_value(np.array([2.0, 3.0]), "count") == "2, 3"
+    assert format_value(24.17, "frequency") == "24.17 Hz"

@@ -1,0 +1,250 @@
+"""The app by keys alone: units, borders, sending, shared fields, the session kept through quits and faults."""
+
+from __future__ import annotations
+
+import asyncio
+import dataclasses
+import math
+import os
+import signal
+
+import pytest
+from helpers.pilot import focus_field, note_of, screen_text, settle, type_into
+
+from fieldmode.calc.checks import SPECS, sdof
+from fieldmode.tui.present import field_text, value_text
+from fieldmode.tui.session import parse_session
+
+SIZE = (80, 24)
+
+
+TWIN = dataclasses.replace(sdof.SPEC, id="sdof-b", title="Second mass", sends={"stiffness": "stiffness"})
+
+
+async def go_to(app, pilot, check_id):
+    for _ in app.specs:
+        if app.current_view.spec.id == check_id:
+            return await settle(app, pilot)
+        await pilot.press("f3")
+    raise AssertionError(check_id)
+
+
+SENDERS = [spec for spec in SPECS if spec.sends]
+
+
+def test_units_key_switches_results_between_si_and_us(make_app):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            assert "kN/mm" in screen_text(app) and "units SI" in screen_text(app)
+            await pilot.press("f5")
+            view = await settle(app, pilot)
+            shown = screen_text(app)
+            assert "units US" in shown and "kip/in" in shown and "lb" in shown
+            # Source: NIST SP 811 B.8: 1 lbf = 4.4482216152605 N, 1 in = 0.0254 m
+            kip_per_in = 42e6 * 0.0254 / 4448.2216152605
+            assert value_text(view.outcome.result.values["stiffness"], "us") == f"{kip_per_in:.1f} kip/in"
+            await pilot.press("f5")
+            await settle(app, pilot)
+            assert "units SI" in screen_text(app)
+
+    asyncio.run(scenario())
+
+
+def test_ascii_borders_draw_no_box_characters(make_app):
+    async def scenario():
+        app = make_app(ascii_borders=True)
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            for key in ("f6", "f1"):
+                await pilot.press(key)
+                await pilot.pause()
+                drawn = screen_text(app)
+                assert not any("\u2500" <= char <= "\u257f" for char in drawn), drawn
+
+    asyncio.run(scenario())
+
+
+def test_stiffness_sent_to_another_check_replaces_its_alternative(make_app):
+    async def scenario():
+        app = make_app(specs=(sdof.SPEC, TWIN))
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await type_into(app, pilot, "stiffness", "")
+            await type_into(app, pilot, "static_deflection", "2 mm")
+            await go_to(app, pilot, "sdof-b")
+            await type_into(app, pilot, "stiffness", "12.5 kN/mm")
+            await pilot.press("f8")
+            assert "Sent stiffness = 12.5 kN/mm to sdof" in app.messages[-1]
+            await pilot.press("f2")
+            view = await settle(app, pilot)
+            assert view.row("stiffness").input.value == "12.5 kN/mm"
+            assert view.row("static_deflection").input.value == ""
+            assert view.outcome.errors == {}
+            # Source: Chopra, Dynamics of Structures, eq. 2.1.4: f_n = (1 / 2 pi) sqrt(k / m)
+            expected = math.sqrt(12.5e6 / 9600) / (2 * math.pi)
+            assert view.outcome.result.values["natural_frequency"].magnitude == pytest.approx(expected)
+            await pilot.press("f8")
+            assert "sdof has no results to send" in app.messages[-1]
+
+    asyncio.run(scenario())
+
+
+@pytest.mark.parametrize("spec", SENDERS, ids=[spec.id for spec in SENDERS])
+def test_every_check_that_sends_fills_every_check_with_the_field(make_app, spec):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            view = await go_to(app, pilot, spec.id)
+            result = view.outcome.result
+            await pilot.press("f8")
+            await pilot.pause()
+            for value_name, field_name in spec.sends.items():
+                value = result.values[value_name]
+                text = field_text(value.magnitude, value.kind, "si")
+                targets = [other for other in SPECS
+                           if other.id != spec.id and any(f.name == field_name for f in other.fields)]
+                for other in targets:
+                    assert app.workspace.texts[other.id][field_name] == text
+                    target = await go_to(app, pilot, other.id)
+                    assert target.row(field_name).input.value == text
+                    assert field_name not in target.outcome.errors
+                    sent = target.outcome.result.inputs[field_name].value
+                    assert sent == pytest.approx(value.si(), rel=1e-5)
+
+    asyncio.run(scenario())
+
+
+def test_shared_mass_follows_until_a_check_has_its_own(make_app):
+    async def scenario():
+        app = make_app(specs=(sdof.SPEC, TWIN))
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await type_into(app, pilot, "mass", "11 t")
+            assert "shared with 1" in note_of(app.current_view, "mass")
+            view = await go_to(app, pilot, "sdof-b")
+            assert view.row("mass").input.value == "11 t"
+            await focus_field(app, pilot, "mass")
+            await pilot.press("ctrl+o")
+            await type_into(app, pilot, "mass", "4 t")
+            assert "own value" in note_of(app.current_view, "mass")
+            await pilot.press("f2")
+            await type_into(app, pilot, "mass", "12 t")
+            view = await go_to(app, pilot, "sdof-b")
+            assert view.row("mass").input.value == "4 t"
+            assert view.row("damping").input.value == "2 %"
+            await type_into(app, pilot, "damping", "3 %")
+            await pilot.press("f2")
+            view = await settle(app, pilot)
+            assert view.row("damping").input.value == "3 %"
+
+    asyncio.run(scenario())
+
+
+def test_session_restored_after_quit(make_app, state):
+    async def first():
+        app = make_app(specs=(sdof.SPEC, TWIN))
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await go_to(app, pilot, "sdof-b")
+            await type_into(app, pilot, "stiffness", "7.25 kN/mm")
+            await pilot.press("f5")
+            await settle(app, pilot)
+            await pilot.press("f10")
+        assert app.return_value == 0
+
+    async def second():
+        app = make_app(specs=(sdof.SPEC, TWIN))
+        async with app.run_test(size=SIZE) as pilot:
+            view = await settle(app, pilot)
+            assert view.spec.id == "sdof-b"
+            assert view.row("stiffness").input.value == "7.25 kN/mm"
+            assert app.workspace.system == "us"
+            assert "kip/in" in screen_text(app)
+
+    asyncio.run(first())
+    saved = parse_session((state / "session.json").read_text())
+    assert saved.texts["sdof-b"]["stiffness"] == "7.25 kN/mm" and saved.current == "sdof-b"
+    asyncio.run(second())
+
+
+@pytest.mark.parametrize("signum", [signal.SIGHUP, signal.SIGTERM], ids=["SIGHUP", "SIGTERM"])
+def test_hangup_or_terminate_saves_and_exits_cleanly(make_app, state, signum):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await pilot.press("home", "ctrl+k", "5", "space", "t")
+            os.kill(os.getpid(), signum)
+            for _ in range(100):
+                if not app.is_running:
+                    break
+                await asyncio.sleep(0.01)
+        return app
+
+    app = asyncio.run(scenario())
+    assert app.return_value == 0
+    assert parse_session((state / "session.json").read_text()).texts["sdof"]["mass"] == "5 t"
+
+
+@pytest.mark.parametrize("content", [b"{not json", b'{"format": "other"}', b"\xff\xfe\x00binary",
+                                     b'{"format": "fieldmode-session", "checks": {"sdof": {"mass": 3}}}'],
+                         ids=["broken", "foreign", "binary", "wrong-types"])
+def test_corrupt_session_is_moved_aside_and_the_demo_opens(make_app, state, content):
+    state.mkdir()
+    (state / "session.json").write_bytes(content)
+
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE, notifications=True) as pilot:
+            view = await settle(app, pilot)
+            assert app.workspace.texts["sdof"] == sdof.SPEC.demo_texts()
+            assert view.outcome.result is not None
+            assert any("could not be read" in message and "moved to" in message for message in app.messages)
+            assert "could not be read" in " ".join(screen_text(app).split())
+
+    asyncio.run(scenario())
+    aside = list(state.glob("session.json.unreadable-*"))
+    assert len(aside) == 1 and aside[0].read_bytes() == content
+
+
+def test_session_that_is_a_folder_is_moved_aside(make_app, state):
+    (state / "session.json").mkdir(parents=True)
+
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            assert any("could not be read" in message for message in app.messages)
+
+    asyncio.run(scenario())
+    assert list(state.glob("session.json.unreadable-*"))[0].is_dir()
+
+
+@pytest.mark.parametrize("kind", ["blocked-by-a-file", "chmod-555"])
+def test_read_only_state_folder_warns_and_the_app_still_works(make_app, tmp_path, kind):
+    if kind == "chmod-555":
+        if os.geteuid() == 0:
+            pytest.skip("root ignores permissions")
+        folder = tmp_path / "locked"
+        folder.mkdir()
+        folder.chmod(0o555)
+    else:
+        blocker = tmp_path / "blocker"
+        blocker.write_text("a file where the state folder should be")
+        folder = blocker / "fieldmode"
+
+    async def scenario():
+        app = make_app(state_folder=folder)
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            assert any("will not be saved" in message for message in app.messages)
+            view = await type_into(app, pilot, "mass", "20 t")
+            assert view.outcome.result is not None
+            assert "NOT SAVED" in screen_text(app)
+            assert any(message.startswith("Session not saved: cannot write") for message in app.messages)
+
+    asyncio.run(scenario())
+    if kind == "chmod-555":
+        folder.chmod(0o755)

@@ -1,0 +1,62 @@
+"""Evaluating a check from its texts: readings, errors on their field, faults to report."""
+
+from __future__ import annotations
+
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from fieldmode.calc.checks import SPECS, sdof
+from fieldmode.tui.evaluation import evaluate, evaluate_guarded, field_of_error
+
+ALL_FIELDS = [(spec, f) for spec in SPECS for f in spec.fields]
+
+
+@pytest.mark.parametrize(("spec", "spec_field"), ALL_FIELDS, ids=[f"{s.id}.{f.name}" for s, f in ALL_FIELDS])
+def test_every_prefix_of_a_demo_value_is_answered_not_raised(spec, spec_field):
+    """Typing a value key by key passes through texts such as '42 kN/': each must give an outcome."""
+    texts = spec.demo_texts()
+    for end in range(len(spec_field.default) + 1):
+        texts[spec_field.name] = spec_field.default[:end]
+        outcome = evaluate(spec, texts, "si")
+        assert outcome.result is not None or outcome.errors or outcome.problem
+
+
+@settings(max_examples=60, deadline=None)
+@given(st.sampled_from(ALL_FIELDS), st.text(max_size=30))
+def test_any_text_in_any_field_gives_an_outcome(pair, text):
+    spec, spec_field = pair
+    texts = spec.demo_texts() | {spec_field.name: text}
+    outcome = evaluate(spec, texts, "us")
+    assert outcome.texts == texts
+    assert outcome.result is not None or outcome.errors or outcome.problem
+
+
+def test_interpretations_beside_the_fields():
+    texts = sdof.SPEC.demo_texts() | {"mass": "117.7 kN", "stiffness": "45 kip/in", "damping": "3"}
+    outcome = evaluate(sdof.SPEC, texts, "si")
+    assert outcome.notes["mass"].startswith("read as weight: m = W/g0 = 12.0")
+    # Source: NIST SP 811 B.8: 1 kip = 4448.2216152605 N, 1 in = 0.0254 m -> 45 kip/in = 7.881 kN/mm
+    assert outcome.notes["stiffness"] == "= 7.881 kN/mm"
+    assert "did you mean 3 %?" in outcome.notes["damping"]
+
+
+def test_errors_from_the_compute_step_land_on_their_field():
+    outcome = evaluate(sdof.SPEC, sdof.SPEC.demo_texts() | {"mass": "-2 t"}, "si")
+    assert "greater than zero" in outcome.errors["mass"] and outcome.result is None
+    assert not outcome.errors["mass"].startswith("Mass:")
+    from fieldmode.calc.framework.units import InputError
+
+    assert field_of_error(sdof.SPEC, InputError("Mass", "x", "bad")).name == "mass"
+    assert field_of_error(sdof.SPEC, InputError("Nothing", "x", "bad")) is None
+
+
+def test_a_fault_in_a_check_becomes_a_problem_to_report():
+    import dataclasses
+
+    def broken(inputs):
+        raise RuntimeError("boom")
+
+    faulty = dataclasses.replace(sdof.SPEC, compute=broken)
+    outcome = evaluate_guarded(faulty, faulty.demo_texts(), "si")
+    assert outcome.result is None and "internal fault in sdof (RuntimeError: boom)" in outcome.problem

@@ -1,0 +1,135 @@
+"""Writing a calc record (F9): one check, the session, asking before replacing, unwritable paths."""
+
+from __future__ import annotations
+
+import asyncio
+import dataclasses
+import json
+import math
+
+import pytest
+from helpers.pilot import keys_for, screen_text, settle, type_into
+
+from fieldmode.calc.checks import sdof
+from fieldmode.tui.widgets.confirm_screen import ConfirmScreen
+from fieldmode.tui.widgets.export_screen import ExportScreen
+
+SIZE = (80, 24)
+
+
+async def _export(app, pilot, path_text, session=False):
+    await pilot.press("f9")
+    await pilot.pause()
+    assert isinstance(app.screen, ExportScreen)
+    if session:
+        await pilot.press("tab", "down", "enter", "shift+tab")
+    await pilot.press("home", "ctrl+k", *keys_for(path_text))
+    await pilot.press("enter")
+    await app.workers.wait_for_complete()
+    await pilot.pause()
+
+
+TWIN = dataclasses.replace(sdof.SPEC, id="sdof-b", title="Second mass", sends={"stiffness": "stiffness"})
+
+
+async def go_to(app, pilot, check_id):
+    for _ in app.specs:
+        if app.current_view.spec.id == check_id:
+            return await settle(app, pilot)
+        await pilot.press("f3")
+    raise AssertionError(check_id)
+
+
+def test_record_of_one_check_written_and_read_back(make_app, tmp_path):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            view = await settle(app, pilot)
+            await pilot.press("f9")
+            await pilot.pause()
+            default = app.screen.query_one("#record-path").value
+            assert default.startswith("fieldmode-sdof-") and default.endswith(".md")
+            await pilot.press("escape")
+            await _export(app, pilot, "site-fan")
+            assert len(app.screen_stack) == 1
+            assert "Calc record written" in app.messages[-1]
+            return view.outcome.result
+
+    result = asyncio.run(scenario())
+    work = tmp_path / "work"
+    markdown = (work / "site-fan.md").read_text()
+    record = json.loads((work / "site-fan.json").read_text())
+    assert "fieldmode 0.1.0" in markdown and f"Caution: {sdof.SPEC.caution}" in markdown
+    assert "| Mass (t) | 9.6 t | 9600 kg |" in markdown
+    assert "Natural frequency" in markdown and "Chopra" in markdown
+    assert record["version"] == "0.1.0" and len(record["checks"]) == 1
+    check = record["checks"][0]
+    assert check["caution"] == sdof.SPEC.caution
+    assert check["inputs"]["mass"] == {"text": "9.6 t", "value": 9600.0, "unit": "kg"}
+    # Source: Chopra, Dynamics of Structures, eq. 2.1.4: f_n = (1 / 2 pi) sqrt(k / m)
+    assert check["results"]["natural_frequency"]["value"] == pytest.approx(math.sqrt(42e6 / 9600) / (2 * math.pi))
+    assert check["results"]["natural_frequency"]["unit"] == "Hz"
+    assert {k: v for k, v in check.items() if k != "title"} == result.to_dict() | {"check": "sdof"}
+
+
+def test_record_of_the_whole_session_has_every_check(make_app, tmp_path):
+    async def scenario():
+        app = make_app(specs=(sdof.SPEC, TWIN))
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await go_to(app, pilot, "sdof-b")
+            await type_into(app, pilot, "mass", "oops")
+            await _export(app, pilot, "all.md", session=True)
+            assert "Calc record written" in app.messages[-1]
+
+    asyncio.run(scenario())
+    record = json.loads((tmp_path / "work" / "all.json").read_text())
+    assert [check["check"] for check in record["checks"]] == ["sdof", "sdof-b"]
+    assert "mass" in record["checks"][1]["errors"]
+    markdown = (tmp_path / "work" / "all.md").read_text()
+    assert "## Second mass (sdof-b)" in markdown and "### Not computed" in markdown
+
+
+def test_record_never_replaces_a_file_without_asking(make_app, tmp_path):
+    existing = tmp_path / "work" / "minutes.md"
+    existing.write_text("keep me")
+
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await _export(app, pilot, "minutes.md")
+            assert isinstance(app.screen, ConfirmScreen)
+            assert "minutes.md already exists" in screen_text(app)
+            await pilot.press("n")
+            await pilot.pause()
+            assert isinstance(app.screen, ExportScreen)
+            assert existing.read_text() == "keep me"
+            await pilot.press("enter")
+            await pilot.pause()
+            await pilot.press("y")
+            await pilot.pause()
+            assert len(app.screen_stack) == 1
+
+    asyncio.run(scenario())
+    assert existing.read_text().startswith("# fieldmode calc record")
+
+
+def test_record_to_an_unwritable_path_says_so_and_keeps_everything(make_app, tmp_path):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await type_into(app, pilot, "mass", "8.8 t")
+            await _export(app, pilot, "no-such-folder/rec.md")
+            assert isinstance(app.screen, ExportScreen)
+            problem = str(app.screen.query_one("#record-problem").content)
+            assert "cannot write no-such-folder/rec" in problem and "No such file or directory" in problem
+            assert app.screen.query_one("#record-path").value == "no-such-folder/rec.md"
+            await pilot.press("escape")
+            await pilot.pause()
+            assert app.workspace.texts["sdof"]["mass"] == "8.8 t"
+            assert app.current_view.row("mass").input.value == "8.8 t"
+
+    asyncio.run(scenario())
+    assert not (tmp_path / "work" / "no-such-folder").exists()
