@@ -33,7 +33,8 @@ class ResultsTable(Static):
         if self._lines is None or self._lines[0] is not table or self._lines[1] != width:
             console = self.app.console
             rows = console.render_lines(table, console.options.update_width(width), pad=False)
-            text = Text("\n").join(Text.assemble(*((segment.text, segment.style or "") for segment in row)) for row in rows)
+            lines = (Text.assemble(*((segment.text, segment.style or "") for segment in row)) for row in rows)
+            text = Text("\n").join(lines)
             self._lines = (table, width, text)
         return self._lines[2]
 

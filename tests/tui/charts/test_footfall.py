@@ -2,32 +2,16 @@
 
 from __future__ import annotations
 
-import re
-
-import plotext
 import pytest
-
-from fieldmode.calc.checks import BY_ID
-from fieldmode.tui.charts import panels_of
+from helpers.charts import draw_panels
 
 
 def test_footfall_chart_without_lateral_frequencies() -> None:
-    spec = BY_ID["footfall"]
-    result = spec.evaluate({"frequency": "7.5 Hz", "structure": "floor"})
-    for draw in panels_of("footfall"):
-        plotext.clf()
-        plotext.plotsize(70, 18)
-        draw(plotext, result, "si")
-        assert plotext.build()
+    assert all(draw_panels("footfall", {"frequency": "7.5 Hz", "lateral_frequency": "", "structure": "floor"}))
 
 
-@pytest.mark.parametrize(("size", "rows"), [((70, 18), "WRJSH"), ((47, 11), "WRJSH")])
-def test_footfall_rows_stay_visible_in_a_small_panel(size: tuple[int, int], rows: str) -> None:
-    spec = BY_ID["footfall"]
-    result = spec.evaluate(spec.demo_texts())
-    plotext.clf()
-    plotext.plotsize(*size)
-    panels_of("footfall")[0](plotext, result, "si")
-    canvas = re.sub(r"\x1b\[[0-9;]*m", "", plotext.build())
-    labels = {line.split("┤")[0].strip() for line in canvas.splitlines() if "┤" in line}
-    assert set(rows) <= labels
+@pytest.mark.parametrize("size", [(70, 18), (47, 11)])
+def test_footfall_rows_stay_visible_in_a_small_panel(size: tuple[int, int]) -> None:
+    vertical = draw_panels("footfall", size=size)[0]
+    labels = {line.split("┤")[0].strip() for line in vertical.splitlines() if "┤" in line}
+    assert set("WRJSH") <= labels
