@@ -132,7 +132,6 @@ def _band_rows() -> tuple[Row, ...]:
 FREQUENCY_BANDS = Table("activity", "Walking, running and jumping frequencies", _band_rows(),
                         "the centre of the band")
 
-TABLES: dict[str, Table] = {table.id: table for table in (DAMPING, MODULUS, FREQUENCY_BANDS)}
 
 
 def table_for(name: str, kind: str) -> Table | None:

@@ -91,13 +91,13 @@ class FieldmodeApp(App[int]):
 
     def compose(self) -> ComposeResult:
         yield TopBar("", id="top")
-        current = self._new_view(self.workspace.current)
+        current = self._new_view(self.workspace.current, compute_on_mount=False)
         yield ContentSwitcher(current, initial=current.id, id="checks")
         yield CautionLine("", id="caution")
         yield KeyBar("", id="keys")
 
-    def _new_view(self, check_id: str) -> CheckView:
-        view = CheckView(self.workspace.by_id[check_id], self.workspace)
+    def _new_view(self, check_id: str, compute_on_mount: bool = True) -> CheckView:
+        view = CheckView(self.workspace.by_id[check_id], self.workspace, compute_on_mount)
         self.views[check_id] = view
         return view
 
@@ -111,8 +111,13 @@ class FieldmodeApp(App[int]):
         loop = asyncio.get_running_loop()
         for signum in (signal.SIGHUP, signal.SIGTERM):
             loop.add_signal_handler(signum, self._on_signal)
+        self.call_after_refresh(self._first_frame)
+
+    def _first_frame(self) -> None:
+        """The fields are on screen: now load the core and compute, in the pane's worker."""
         if self._on_first_frame is not None:
-            self.call_after_refresh(self._on_first_frame, self)
+            self._on_first_frame(self)
+        self.current_view.request_compute()
 
     def on_unmount(self) -> None:
         loop = asyncio.get_running_loop()

@@ -12,6 +12,7 @@ from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.result import SEISMIC_CAUTION, Flag, Reference, Result, Value, quantity
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 from fieldmode.calc.physics import design_spectrum
+from fieldmode.calc.physics.spectrum import DEFAULT_GRID, period_grid
 from fieldmode.calc.records import accelerogram
 from fieldmode.calc.records.columns import RECORD_COLUMN_FIELDS
 
@@ -25,8 +26,6 @@ if TYPE_CHECKING:
     from fieldmode.calc.framework.reading import Inputs
     from fieldmode.calc.physics.spectrum import Spectrum
 
-DEFAULT_GRID = (0.02, 10.0, 200)
-"""Default period grid: shortest (s), longest (s), number of log-spaced periods (as calc.spectrum)."""
 MIN_PERIOD = 0.001
 """Shortest period accepted (s)."""
 MAX_COUNT = 500
@@ -144,7 +143,7 @@ def _periods(inputs: Inputs) -> np.ndarray:
     if longest <= shortest:
         raise inputs.error("longest_period" if inputs.has("longest_period") else "shortest_period",
                            "the longest period must exceed the shortest")
-    return np.geomspace(shortest, longest, int(count))
+    return period_grid(shortest, longest, int(count))
 
 
 def _record(inputs: Inputs) -> tuple[np.ndarray, np.ndarray, float, list[Flag]]:

@@ -22,7 +22,6 @@ SEISMIC_CAUTION = ("Seismic screening only, not a design: the design code, a sit
                    "hazard study and a licensed engineer govern.")
 
 Level = Literal["info", "caution", "warning"]
-LEVELS: tuple[Level, ...] = ("info", "caution", "warning")
 
 
 @dataclass(frozen=True)

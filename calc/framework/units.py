@@ -84,11 +84,6 @@ class Reading:
         return float(self.quantity.to(KINDS[self.kind].si).magnitude)
 
 
-def parse(text: str, kind: str, field: str = "") -> pint.Quantity:
-    """Read ``text`` as a quantity of ``kind``; raise :class:`InputError` if it is not one."""
-    return read(text, kind, field).quantity
-
-
 def read(text: str, kind: str, field: str = "", default_unit: str | None = None) -> Reading:
     """Read ``text`` as a quantity of ``kind`` and say how it was read.
 

@@ -161,12 +161,10 @@ class _Group:
         self._maps: dict[type, tuple[np.ndarray, np.ndarray]] = {}
         ends = forced[:, size].transpose(0, 2, 1).reshape(2 * count, size + 1) @ self.inputs
         states = _scan(powers[:, size], np.ascontiguousarray(ends.reshape(count, 2, -1).transpose(0, 2, 1)))
-        self.starts, self.final = states[:, :-1], states[:, -1]
+        self.starts = states[:, :-1]
 
     starts: np.ndarray
     """(P, blocks, 2): state at the start of each block."""
-    final: np.ndarray
-    """(P, 2): state after the last block; the ground is at rest from there on."""
 
     def responses(self, periods: slice, blocks: slice, dtype: type = np.float64) -> np.ndarray:
         """u, u', total acceleration (c, 3, BLOCK, b) for a slice of periods and blocks, in ``dtype``.

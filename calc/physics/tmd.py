@@ -55,13 +55,6 @@ def optimum(mu: float, excitation: str) -> Optimum:
     return den_hartog(mu) if excitation == "force" else warburton_ground(mu)
 
 
-def fixed_point_ratios(mu: float) -> tuple[float, float]:
-    """Forcing ratios r = omega / omega_p of Den Hartog's two fixed points (optimum tuning, force):
-    r^2 = (1 -/+ sqrt(mu / (2 + mu))) / (1 + mu)."""
-    root = math.sqrt(mu / (2.0 + mu))
-    return math.sqrt((1.0 - root) / (1.0 + mu)), math.sqrt((1.0 + root) / (1.0 + mu))
-
-
 def response(ratio: np.ndarray, mu: float, tuning: float, zeta_d: float, zeta_p: float,
              excitation: str = "force") -> tuple[np.ndarray, np.ndarray]:
     """Complex amplitudes of the primary's displacement and of the damper's stroke (relative to the

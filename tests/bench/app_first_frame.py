@@ -1,13 +1,12 @@
-"""Run an app headless until its first full frame, then exit; print when that frame was done.
+"""Run an app headless until its first results are on screen, then exit; print when each stage was drawn.
 
-    python app_first_frame.py bare   a Textual app showing one label
-    python app_first_frame.py floor  the same app after importing the core (calc.checks: pint, numpy)
-    python app_first_frame.py field  fieldmode's app on the demo, started as `fieldmode` starts it
-                                     (tui.cli, then tui.app.launch), until the first results are on screen
+    python app_first_frame.py bare    a Textual app showing one label (the reference)
+    python app_first_frame.py field   fieldmode's app on the demo, started as `fieldmode` starts it
 
-The last line printed is ``first-frame <time.monotonic()>`` taken when the frame is on
-screen (the system-wide monotonic clock, comparable with the parent's; bench_app times
-from just before it started this process).
+Prints ``frame <t>`` when the first frame is on screen (fieldmode: the fields and labels drawn) and,
+for fieldmode, ``results <t>`` when the first results are on screen; ``t`` is ``time.monotonic()``,
+the system-wide clock, comparable with the parent's (bench_app times from just before it started
+this process).
 """
 
 from __future__ import annotations
@@ -18,8 +17,7 @@ import time
 from pathlib import Path
 from typing import Any
 
-ROOT = Path(__file__).resolve().parents[2]
-shown_at: list[float] = []
+stages: dict[str, float] = {}
 
 
 def bare() -> None:
@@ -34,33 +32,31 @@ def bare() -> None:
             self.call_after_refresh(self.shown)
 
         def shown(self) -> None:
-            shown_at.append(time.monotonic())
+            stages["frame"] = time.monotonic()
             self.exit()
 
     Bare().run(headless=True, size=(80, 24))
 
 
 def field(state: Path) -> None:
-    sys.path.insert(0, str(ROOT))
     import fieldmode.tui.cli  # noqa: F401  (the console script's module, as `fieldmode` loads it)
-    from fieldmode.tui.launch_old import launch
+    from fieldmode.tui.app import run_app
 
-    def shown(app: Any) -> None:  # the FieldmodeApp, not imported here: launch() imports it
-        shown_at.append(time.monotonic())
+    def frame(app: Any) -> None:
+        stages["frame"] = time.monotonic()
+
+    def results(app: Any) -> None:
+        stages["results"] = time.monotonic()
         app.exit()
 
-    launch(state, on_first_frame=shown, headless=True, size=(80, 24))
+    run_app(state, on_first_frame=frame, on_first_results=results, headless=True, size=(80, 24))
 
 
 if __name__ == "__main__":
     if sys.argv[1] == "bare":
         bare()
-    elif sys.argv[1] == "floor":
-        sys.path.insert(0, str(ROOT))
-        import fieldmode.calc.checks  # noqa: F401  (what any screen of results needs first)
-
-        bare()
     else:
         with tempfile.TemporaryDirectory() as folder:
             field(Path(folder))
-    print(f"first-frame {shown_at[0]!r}")
+    for stage, when in stages.items():
+        print(f"{stage} {when!r}")

@@ -63,7 +63,8 @@ def screen_text(app: FieldmodeApp) -> str:
 def note_of(view: CheckView, name: str) -> str:
     """The reading shown beside a field, then its error line, as plain text."""
     row = view.row(name)
-    return " ".join(str(static.content) for static in row.query(".field-note, .field-error"))
+    return " ".join(part for part in (row.note if not row.error else "! not read",
+                                       "! " + row.error if row.error else "") if part)
 
 
 def flags_text(view: CheckView) -> str:

@@ -47,8 +47,10 @@ class CheckView(Vertical):
 
         check_id: str
 
-    def __init__(self, spec: CheckSpec, workspace: Workspace) -> None:
+    def __init__(self, spec: CheckSpec, workspace: Workspace, compute_on_mount: bool = True) -> None:
+        """``compute_on_mount`` False: the app asks for the first computation (after its first frame)."""
         super().__init__(id=f"check-{spec.id}", classes="check-view")
+        self._compute_on_mount = compute_on_mount
         self.spec = spec
         self.workspace = workspace
         self.outcome: Outcome | None = None
@@ -87,7 +89,8 @@ class CheckView(Vertical):
 
     def on_mount(self) -> None:
         self._table.show_problem("computing...")
-        self.request_compute()
+        if self._compute_on_mount:
+            self.request_compute()
 
     def rows(self) -> list[FieldRow]:
         return list(self._rows.values())
@@ -201,6 +204,8 @@ class CheckView(Vertical):
             self._chart = ChartPane(self.spec.id)
             await self.query_one(".right").mount(self._chart)
         self.set_class(bool(self.view), "-chart")
+        for row in self._rows.values():
+            row.show_notes(not self.view)
         self.query_one(".results-box").display = not self.view
         if self._chart is not None:
             self._chart.display = bool(self.view)

@@ -2,16 +2,16 @@
 
 from __future__ import annotations
 
+import textwrap
 from collections.abc import Callable
 from typing import Any
 
 from rich.text import Text
 from textual import events
 from textual.app import ComposeResult
-from textual.containers import Horizontal, Vertical
-from textual.content import Content
 from textual.suggester import SuggestFromList
-from textual.widgets import Input, Static
+from textual.widget import Widget
+from textual.widgets import Input
 
 from fieldmode.calc.framework.spec import Field
 from fieldmode.tui.widgets.dialog import hand_to_dialog
@@ -19,6 +19,12 @@ from fieldmode.tui.widgets.path_suggester import PathSuggester
 
 MAX_INPUT = 4096
 """Characters accepted in a text box (the parser refuses long text with a clear message)."""
+INDENT = 2
+"""Cells before the text box (the '>' focus marker sits in them on the label line)."""
+BOX_WIDTH, PATH_BOX_WIDTH = 16, 19
+"""Width of a text box, and of a file path's (cells)."""
+DEFAULT_WIDTH = 36
+"""Width assumed before the row has been laid out (the field pane at 80 columns)."""
 
 
 class FieldInput(Input):
@@ -65,12 +71,12 @@ def input_id(check_id: str, field_name: str) -> str:
     return f"in-{check_id}--{field_name}"
 
 
-class FieldRow(Vertical):
-    """Label line, then the text box with the reading beside it, then an error if any.
+class FieldRow(Widget):
+    """One field: its label, then the text box with how the text was read beside it, then any error.
 
-    The row draws its label line itself (the field line below it covers the rest of
-    the row), and the error line is made the first time the field has an error: every
-    widget costs start-up time.
+    The row draws its label, the reading and the error itself around its one child, the text
+    box, and sets its own height from the lines it shows: a row is two widgets, which keeps the
+    first frame quick. The label folds onto more lines where the pane is narrow.
     """
 
     def __init__(self, check_id: str, spec_field: Field, text: str, edited: Callable[[str, str], None]) -> None:
@@ -80,19 +86,16 @@ class FieldRow(Vertical):
         self.input: Input = FieldInput(text, lambda value: edited(spec_field.name, value),
                                        id=input_id(check_id, spec_field.name), compact=True,
                                        suggester=self._suggester(), max_length=MAX_INPUT, select_on_focus=False)
-        self._note = Static("", classes="field-note", markup=False)
-        self._error: Static | None = None
-        self._composed = False
+        self.note = ""
+        """How the text was read, as shown beside the box."""
+        self.error = ""
+        """What is wrong with the text ('' when it was read)."""
+        self.notes_shown = True
+        """False in chart view, where the pane is too narrow for the readings."""
         self._focused = False
-        self._shown: tuple[str, str] | None = None
 
     def compose(self) -> ComposeResult:
-        self._composed = True
-        with Horizontal(classes="field-line"):
-            yield self.input
-            yield self._note
-        if self._error is not None:
-            yield self._error
+        yield self.input
 
     def _suggester(self) -> SuggestFromList | PathSuggester | None:
         if self.field.kind == "choice":
@@ -101,12 +104,43 @@ class FieldRow(Vertical):
             return PathSuggester()
         return None
 
-    def render(self) -> Content:
-        """The label line: a '>' marker on the field in focus, the label with its unit."""
-        label = self.field.label_with_unit
-        if self.field.many:
-            label += ", list"
-        return Content.styled(("> " if self._focused else "  ") + label, "bold")
+    @property
+    def _box_width(self) -> int:
+        return PATH_BOX_WIDTH if self.field.kind == "path" else BOX_WIDTH
+
+    def _lines(self, width: int) -> tuple[list[str], list[str], list[str]]:
+        """The label lines, the reading's lines beside the box, and the error lines, for ``width`` cells."""
+        label = self.field.label_with_unit + (", list" if self.field.many else "")
+        labels = textwrap.wrap(label, max(8, width - 2)) or [""]
+        beside = max(4, width - INDENT - self._box_width - 1)
+        note = "! not read" if self.error else self.note
+        notes = (textwrap.wrap(note, beside) or [""]) if self.notes_shown else [""]
+        errors = textwrap.wrap("! " + self.error, max(8, width - INDENT)) if self.error else []
+        return labels, notes, errors
+
+    def _fit(self) -> None:
+        """Put the box below the label and make the row as tall as what it shows."""
+        labels, notes, errors = self._lines(self.size.width or DEFAULT_WIDTH)
+        self.input.styles.margin = (len(labels), 0, 0, INDENT)
+        self.styles.height = len(labels) + len(notes) + len(errors)
+
+    def on_resize(self) -> None:
+        self._fit()
+
+    def render(self) -> Text:
+        """Label (marked '>' in focus), the reading beside the box, the error below."""
+        labels, notes, errors = self._lines(self.size.width or DEFAULT_WIDTH)
+        text = Text(no_wrap=True, overflow="crop")
+        for index, line in enumerate(labels):
+            marker = "> " if self._focused and index == 0 else "  "
+            text.append(marker + line + "\n", style="bold")
+        column = " " * (INDENT + self._box_width + 1)
+        for line in notes:
+            text.append(column + line + "\n", style="dim" if not self.error else "")
+        for line in errors:
+            text.append(" " * INDENT + line + "\n", style="bold")
+        text.rstrip()
+        return text
 
     def on_descendant_focus(self) -> None:
         self._focused = True
@@ -118,20 +152,19 @@ class FieldRow(Vertical):
 
     def show(self, note: str, error: str) -> None:
         """Show how the text was read, or what is wrong with it (marked with '!')."""
-        if (note, error) == self._shown:
+        if (note, error) == (self.note, self.error):
             return
-        self._shown = (note, error)
-        self._note.update(Text(note if not error else "! not read"))
-        if self._error is None:
-            if not error:
-                return
-            self._error = Static(Text("! " + error), classes="field-error", markup=False)
-            if self._composed:
-                self.mount(self._error)
-        else:
-            self._error.update(Text("! " + error) if error else Text(""))
-        self._error.display = bool(error)
+        self.note, self.error = note, error
         self.set_class(bool(error), "-error")
+        self._fit()
+        self.refresh()
+
+    def show_notes(self, shown: bool) -> None:
+        """Show the readings beside the boxes (results view) or not (chart view, a narrower pane)."""
+        if shown != self.notes_shown:
+            self.notes_shown = shown
+            self._fit()
+            self.refresh()
 
     def set_text(self, text: str) -> None:
         """Put ``text`` in the box; the pane ignores it as an edit (the session holds it already)."""

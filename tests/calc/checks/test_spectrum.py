@@ -136,7 +136,8 @@ def test_spectrum_signal_unit_from_header_or_asked(tmp_path: Path) -> None:
         SPECTRUM.evaluate({"file": str(velocity), "period_count": "20"})
 
 
-def test_default_grid_matches_the_core() -> None:
-    from fieldmode.calc.checks.spectrum import DEFAULT_GRID
-
-    assert DEFAULT_GRID == core.DEFAULT_GRID
+def test_default_grid_is_200_log_spaced_periods_from_20_ms_to_10_s() -> None:
+    texts = {**SPECTRUM.demo_texts(), "shortest_period": "", "longest_period": "", "period_count": ""}
+    periods = SPECTRUM.evaluate(texts).series["period"]
+    # Common practice (no source): the documented default grid, 200 log-spaced periods 0.02-10 s
+    np.testing.assert_allclose(periods, np.geomspace(0.02, 10.0, 200), rtol=1e-12)
