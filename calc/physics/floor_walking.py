@@ -8,7 +8,9 @@ Two methods, SI throughout (N, kg, m, s, Hz, m/s^2):
   the walking force is a Fourier series at the pacing rate fp, F(t) = Q [1 + sum_h alpha_h sin(2 pi h fp t)];
   the harmonic h nearest the floor's frequency drives the mode (modal mass M, damping ratio zeta) to a
   steady acceleration amplitude alpha_h Q mu r^2 / (M sqrt((1 - r^2)^2 + (2 zeta r)^2)), r = h fp / fn
-  (alpha_h Q mu / (2 zeta M) at resonance), less the part the walker has no time to build up.
+  (alpha_h Q mu / (2 zeta M) at resonance), less the part the walker has no time to build up: the share
+  1 - exp(-2 pi zeta N) of the resonant amplitude after N cycles at the antinode, or the crossing factor
+  of a walker crossing a half-sine mode.
 
 The cutoff between low- and high-frequency floors differs by guide: 9 Hz in AISC Design Guide 11 (2nd ed.)
 4.1, 10 Hz in SCI P354. Above it a floor answers each footfall as an impulse (:mod:`floor_impulse`).
@@ -198,22 +200,28 @@ def steady_acceleration(force: float, frequency: float, damping: float, modal_ma
     else (F/M) r^2 / sqrt((1 - r^2)^2 + (2 zeta r)^2)."""
     check_damping(damping)
     check_positive("modal mass", modal_mass)
-    r = 1.0 if forcing_frequency is None else forcing_frequency / frequency
-    return force / modal_mass * r**2 / math.hypot(1.0 - r**2, 2.0 * damping * r)
+    ratio = 1.0 if forcing_frequency is None else forcing_frequency / frequency
+    return force / modal_mass * _amplification(ratio, damping)
+
+
+def _pacing_rates(frequency: float, band: tuple[float, float]) -> list[tuple[int, float]]:
+    """For each harmonic h, the pacing rate (Hz) in ``band`` nearest fn / h."""
+    return [(h, float(np.clip(frequency / h, *band))) for h in range(1, HARMONICS + 1)]
+
+
+def _amplification(ratio: float, damping: float) -> float:
+    """Acceleration amplification r^2 / sqrt((1 - r^2)^2 + (2 zeta r)^2) of a force at r = f / fn."""
+    return ratio**2 / math.hypot(1.0 - ratio**2, 2.0 * damping * ratio)
 
 
 def driving_harmonic(frequency: float, damping: float, guide: str = SCI_P354,
                      band: tuple[float, float] = footfall.WALKING) -> tuple[int, float]:
     """The walking harmonic h and pacing rate fp (Hz, within ``band``) that drive a mode of ``frequency``
-    (Hz) hardest: for each h the pacing rate nearest fn / h, the one of largest alpha_h times amplification."""
-    best: tuple[float, int, float] = (-1.0, 0, 0.0)
-    for harmonic in range(1, HARMONICS + 1):
-        pacing = float(np.clip(frequency / harmonic, *band))
-        r = harmonic * pacing / frequency
-        drive = dynamic_load_factor(harmonic, pacing, guide) * r**2 / math.hypot(1.0 - r**2, 2.0 * damping * r)
-        if drive > best[0]:
-            best = (drive, harmonic, pacing)
-    return best[1], best[2]
+    (Hz) hardest in the steady state: for each h the pacing rate nearest fn / h, the one of largest
+    alpha_h times the amplification."""
+    return max(_pacing_rates(frequency, band),
+               key=lambda hp: dynamic_load_factor(hp[0], hp[1], guide) * _amplification(hp[0] * hp[1] / frequency,
+                                                                                         damping))
 
 
 def crossing_cycles(frequency: float, path_length: float, pacing_rate: float, stride: float = STRIDE) -> float:
@@ -287,25 +295,34 @@ def resonant_response(frequency: float, damping: float, modal_mass: float, *, pa
 
     ``path_length`` (m) limits the build-up to the cycles of the mode while the walker covers it (None: the
     steady state); ``crossing`` says the walker crosses a half-sine mode along that path rather than staying
-    near its antinode. ``mode_factor`` is the product of the mode's amplitudes at the walker and at the
-    receiver (1 at the antinode). ``cutoff`` (Hz) defaults to the guide's (:data:`CUTOFF_HZ`). The r.m.s.
-    is that of a sinusoid at the peak amplitude.
+    near its antinode. A force off resonance builds up no faster than at resonance (the detuned envelope
+    |int exp((-zeta wn + i dw) u) du| is at most int exp(-zeta wn u) du), so the peak of each harmonic is the
+    lesser of its steady amplitude and the resonant amplitude F / (2 zeta M) times the build-up share; the
+    harmonic and pacing rate of the largest peak are kept. The overshoot of a detuned start (beats) is not
+    counted. ``mode_factor`` is the product of the mode's amplitudes at the walker and at the receiver (1 at
+    the antinode; with ``crossing``, the receiver's alone). ``cutoff`` (Hz) defaults to the guide's
+    (:data:`CUTOFF_HZ`). The r.m.s. is that of a sinusoid at the peak amplitude.
     """
     _check_low_frequency(frequency, guide, cutoff)
     check_damping(damping)
     check_positive("modal mass", modal_mass)
     check_positive("walker's weight", weight)
-    harmonic, pacing = driving_harmonic(frequency, damping, guide)
-    force = dynamic_load_factor(harmonic, pacing, guide) * weight * mode_factor
-    steady = steady_acceleration(force, frequency, damping, modal_mass, harmonic * pacing)
-    share = 1.0
-    if path_length is not None:
-        cycles = crossing_cycles(frequency, path_length, pacing, stride)
-        share = crossing_factor(damping, cycles) if crossing else buildup_factor(damping, cycles)
-    peak = steady * share
+    best: tuple[int, float, float, float, float] | None = None
+    for harmonic, pacing in _pacing_rates(frequency, footfall.WALKING):
+        force = dynamic_load_factor(harmonic, pacing, guide) * weight * mode_factor
+        steady = steady_acceleration(force, frequency, damping, modal_mass, harmonic * pacing)
+        peak = steady
+        if path_length is not None:
+            cycles = crossing_cycles(frequency, path_length, pacing, stride)
+            share = crossing_factor(damping, cycles) if crossing else buildup_factor(damping, cycles)
+            peak = min(steady, share * force / (2.0 * damping * modal_mass))
+        if best is None or peak > best[4]:
+            best = (harmonic, pacing, force, steady, peak)
+    assert best is not None
+    harmonic, pacing, force, steady, peak = best
     rms = peak / math.sqrt(2.0)
     factor = float(base_curves.response_factor(rms, frequency, "vertical"))
-    return WalkingResponse(harmonic, pacing, force, steady, share, peak, rms, factor)
+    return WalkingResponse(harmonic, pacing, force, steady, peak / steady if steady > 0 else 1.0, peak, rms, factor)
 
 
 def resonant_damping_for_limit(response_factor: float, frequency: float, modal_mass: float,
