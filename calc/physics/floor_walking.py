@@ -251,6 +251,8 @@ def crossing_factor(damping: float, cycles: float) -> float:
     x = 2.0 * math.pi * damping * cycles
     if not x > 0.0:
         return 0.0
+    if math.isinf(x):
+        return 1.0
 
     def envelope(s: float) -> float:
         return x * (x * math.sin(math.pi * s) - math.pi * math.cos(math.pi * s) + math.pi * math.exp(-x * s)) / (
