@@ -109,6 +109,7 @@ def test_dg11_refuses_damping_outside_zero_to_one_with_usual_values(damping: flo
 
 
 def test_zero_damping_message_says_the_resonance_is_unbounded() -> None:
+    # Source: Chopra ch. 3, the undamped resonant amplitude grows without bound
     with pytest.raises(ValueError, match="unbounded"):
         fw.resonant_response(2.0, 0.0, 10e3)
     with pytest.raises(ValueError, match="unbounded"):
@@ -280,6 +281,7 @@ def test_resonant_inverses_round_trip() -> None:
 
 
 def test_resonant_targets_out_of_reach() -> None:
+    # Common practice (no source): the resonant response solved for zeta and fn, out of reach either way
     assert fw.resonant_damping_for_limit(1.0, 2.0, 2e3) is None  # would need more than 20 %
     assert fw.resonant_damping_for_limit(8.0, 4.0, 15e3, path_length=0.3) == 0.0  # one step: nothing builds
     assert fw.resonant_frequency_for_limit(0.5, 0.02, 5e3) is None  # fails just below the cutoff too
@@ -299,6 +301,7 @@ def test_resonant_response_falls_as_mass_and_damping_rise(frequency: float, damp
 
 
 def test_bad_inputs_are_refused() -> None:
+    # Common practice (no source): inputs outside their physical range are refused with the field named
     with pytest.raises(ValueError, match="modal mass"):
         fw.resonant_response(3.0, 0.03, 0.0)
     with pytest.raises(ValueError, match="natural frequency"):

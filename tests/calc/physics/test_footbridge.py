@@ -216,6 +216,8 @@ def test_typical_footbridge_damping_by_construction() -> None:
 
 
 def test_bad_inputs_are_refused() -> None:
+    # Common practice (no source): inputs outside their physical range are refused with the field named;
+    # Source: Allen & Murray 1993 damping quoted when zero damping is refused
     with pytest.raises(ValueError, match="direction"):
         fb.stream_acceleration(1.9, 0.005, MODAL_MASS, 120.0, 0.5, "sideways")
     with pytest.raises(ValueError, match="guide"):
