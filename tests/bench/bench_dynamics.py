@@ -12,7 +12,7 @@ from fieldmode.calc.checks import BY_ID
 from fieldmode.tui.charts import panels_of
 
 KEYSTROKE_BUDGET = 0.030
-"""DESIGN.md section 7: one keystroke to updated results and chart, median (s)."""
+"""One keystroke to updated results and chart, median (s), per check (budget in DEVELOPERS.md)."""
 
 EDITS = {
     "storeys": ("masses", ["310 t, 300 t, 24 t", "310 t, 300 t, 240 t", "310 t, 300 t, 245 t"]),

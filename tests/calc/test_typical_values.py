@@ -77,7 +77,8 @@ def test_log_decrement_conversion_is_the_exact_relation():
 
 
 def test_walking_band_as_published():
-    # Source: REFERENCES.md: pacing rate 1.7-2.4 Hz, first-harmonic band 1.5-2.5 Hz (Eurocode footbridge guidance)
+    # Source: Eurocode serviceability teaching material (confirmed in one copy): pacing rate 1.7-2.4 Hz,
+    # first-harmonic band 1.5-2.5 Hz
     bands = {activity: (low, high) for activity, low, high, _ in ACTIVITY_BANDS}
     assert bands["walking, pacing rate"] == (1.7, 2.4)
     assert bands["walking, first-harmonic band"] == (1.5, 2.5)

@@ -70,3 +70,12 @@ def note_of(view: CheckView, name: str) -> str:
 def flags_text(view: CheckView) -> str:
     """The flags list of a pane as plain text."""
     return str(view.query_one(".flags").content)
+
+
+async def go_to(app: FieldmodeApp, pilot: Pilot, check_id: str) -> CheckView:
+    """Step through the checks with F3 until ``check_id`` is on screen; wait for its results."""
+    for _ in app.specs:
+        if app.current_view.spec.id == check_id:
+            return await settle(app, pilot)
+        await pilot.press("f3")
+    raise AssertionError(f"F3 never reached {check_id}")

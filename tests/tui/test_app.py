@@ -3,13 +3,13 @@
 from __future__ import annotations
 
 import asyncio
-import dataclasses
 import math
 import os
 import signal
 
 import pytest
-from helpers.pilot import focus_field, note_of, screen_text, settle, type_into
+from helpers.pilot import focus_field, go_to, note_of, screen_text, settle, type_into
+from helpers.specs import TWIN
 
 from fieldmode.calc.checks import SPECS, sdof
 from fieldmode.tui.present import field_text, value_text
@@ -18,15 +18,8 @@ from fieldmode.tui.session import parse_session
 SIZE = (80, 24)
 
 
-TWIN = dataclasses.replace(sdof.SPEC, id="sdof-b", title="Second mass", sends={"stiffness": "stiffness"})
 
 
-async def go_to(app, pilot, check_id):
-    for _ in app.specs:
-        if app.current_view.spec.id == check_id:
-            return await settle(app, pilot)
-        await pilot.press("f3")
-    raise AssertionError(check_id)
 
 
 SENDERS = [spec for spec in SPECS if spec.sends]

@@ -5,13 +5,13 @@ from __future__ import annotations
 import dataclasses
 
 import pytest
+from helpers.specs import TWIN
 
 from fieldmode.calc.checks import SPECS, sdof
 from fieldmode.tui.present import field_text
 from fieldmode.tui.session import SessionData
 from fieldmode.tui.workspace import Workspace
 
-TWIN = dataclasses.replace(sdof.SPEC, id="sdof-b", title="Second mass", sends={"stiffness": "stiffness"})
 OTHER = dataclasses.replace(sdof.SPEC, id="sdof-c", title="Third mass",
                             fields=tuple(dataclasses.replace(f, default="18 t") if f.name == "mass" else f
                                          for f in sdof.SPEC.fields))

@@ -58,7 +58,7 @@ def test_demo_fan_design_against_the_ode_solver() -> None:
     assert values["isolation"] == pytest.approx(0.9, rel=1e-9)
     transmitted = _support_force_ratio(9600.0, values["stiffness"], 0.02, f)
     assert values["transmissibility"] == pytest.approx(transmitted, rel=1e-4)
-    # Source: REFERENCES.md trade rule fn = 15.76 / sqrt(static deflection in mm) for a mass on a spring
+    # Common practice (no source): trade rule fn = 15.76 / sqrt(static deflection in mm) for a mass on a spring
     assert values["natural_frequency"] == pytest.approx(15.76 / math.sqrt(values["static_deflection"] * 1000),
                                                         rel=1e-3)
     assert values["static_deflection"] == pytest.approx(9600 * STANDARD_GRAVITY / values["stiffness"])

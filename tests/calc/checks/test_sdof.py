@@ -20,7 +20,7 @@ TEXTS = st.one_of(st.text(max_size=30), st.sampled_from(["0", "-1 t", "1e300 t",
 
 
 def test_static_deflection_rule() -> None:
-    # Source: REFERENCES.md / trade rule f = 15.76 / sqrt(delta in mm) for a single mass on a spring
+    # Common practice (no source): trade rule f = 15.76 / sqrt(delta in mm) for a single mass on a spring
     result = SPEC.evaluate({"mass": "5 t", "static_deflection": "4 mm", "damping": "0"})
     frequency = result.values["natural_frequency"].si()
     assert frequency == pytest.approx(15.76 / math.sqrt(4.0), rel=1e-3)

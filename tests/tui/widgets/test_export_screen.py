@@ -3,12 +3,12 @@
 from __future__ import annotations
 
 import asyncio
-import dataclasses
 import json
 import math
 
 import pytest
-from helpers.pilot import keys_for, screen_text, settle, type_into
+from helpers.pilot import go_to, keys_for, screen_text, settle, type_into
+from helpers.specs import TWIN
 
 from fieldmode.calc.checks import sdof
 from fieldmode.tui.widgets.confirm_screen import ConfirmScreen
@@ -29,15 +29,8 @@ async def _export(app, pilot, path_text, session=False):
     await pilot.pause()
 
 
-TWIN = dataclasses.replace(sdof.SPEC, id="sdof-b", title="Second mass", sends={"stiffness": "stiffness"})
 
 
-async def go_to(app, pilot, check_id):
-    for _ in app.specs:
-        if app.current_view.spec.id == check_id:
-            return await settle(app, pilot)
-        await pilot.press("f3")
-    raise AssertionError(check_id)
 
 
 def test_record_of_one_check_written_and_read_back(make_app, tmp_path):
