@@ -98,7 +98,11 @@ def _positive_ppv(ppv: float) -> float:
 
 
 def _reached(distance: float, valid: Range, ppv: float) -> float:
-    """The distance at which ``ppv`` is reached, refused with the reason if outside the formula's range."""
+    """The distance at which ``ppv`` is reached, refused with the reason if outside the formula's range
+    (a distance within rounding of an end of the range is put on it)."""
+    slack = 1e-9 * valid.high
+    if valid.low - slack <= distance < valid.low or valid.high < distance <= valid.high + slack:
+        return min(max(distance, valid.low), valid.high)
     if distance < valid.low:
         raise ValueError(f"{ppv / MM:g} mm/s would be reached only {distance:.3g} m away, closer than the formula's "
                          f"range starts ({valid.low:g} m): it is not exceeded anywhere in that range")

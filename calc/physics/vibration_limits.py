@@ -150,7 +150,8 @@ def curve(key: str | GuidelineLine, f_min: float = 1.0, f_max: float = 150.0,
 
 @dataclass(frozen=True)
 class Assessment:
-    """A PPV against a guideline line: limit (m/s), PPV / limit, and whether the limit is met (PPV <= limit)."""
+    """A PPV against a guideline line: limit (m/s), PPV / limit, and whether the limit is met (PPV <= limit,
+    with a PPV equal to the limit within rounding counted as met)."""
 
     limit: np.ndarray
     ratio: np.ndarray
@@ -168,7 +169,7 @@ def assess(ppv: np.ndarray | float, frequency: np.ndarray | float, key: str | Gu
         raise ValueError("PPVs must be finite and not negative (m/s)")
     allowed = limit(line, frequency, factor)
     ratio = value / allowed
-    return Assessment(allowed, ratio, ratio <= 1.0, line.key, line.source)
+    return Assessment(allowed, ratio, ratio <= 1.0 + 1e-12, line.key, line.source)
 
 
 @dataclass(frozen=True)
