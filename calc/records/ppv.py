@@ -89,6 +89,7 @@ def crossing_frequency(velocity: np.ndarray, fs: float, index: int) -> float | N
     zero crossings before and after it), crossings interpolated linearly; None if either side has no
     crossing within :data:`CROSSING_SEARCH` s."""
     rate = samples.sample_rate(fs)
+    velocity = _at(velocity, index)
     reach = max(2, math.ceil(CROSSING_SEARCH * rate))
     lo = max(0, index - reach)
     part = velocity[lo:index + reach + 1] * (1.0 if velocity[index] >= 0 else -1.0)
@@ -110,6 +111,7 @@ def spectral_frequency(velocity: np.ndarray, fs: float, index: int, window: floa
     from scipy.fft import next_fast_len, rfft, rfftfreq
 
     rate = samples.sample_rate(fs)
+    velocity = _at(velocity, index)
     half = max(4, round(samples.positive(window, "spectrum window", "s") * rate / 2))
     part = velocity[max(0, index - half):index + half]
     if part.size < 8:
@@ -215,6 +217,14 @@ def _vector_sum_in(axes: list[np.ndarray], rate: float, lo: int, hi: int, t0: fl
         if total[k] > best:
             best, where = float(total[k]), begin + k
     return math.sqrt(best), t0 + where / rate
+
+
+def _at(velocity: np.ndarray, index: int) -> np.ndarray:
+    """``velocity`` as a float array, refused unless ``index`` is one of its samples."""
+    v = np.asarray(velocity, dtype=float)
+    if v.ndim != 1 or not 0 <= index < v.size:
+        raise ValueError(f"sample {index} is not in a record of {v.size} samples")
+    return v
 
 
 def _axes(velocities: Sequence[np.ndarray]) -> list[np.ndarray]:

@@ -17,8 +17,9 @@ steady state of the first sample so an offset in the record adds no start-up tra
 The bilinear transform squeezes the whole analog frequency axis below the Nyquist frequency, so at
 the usual record rates (256 to 1000 Hz) the digital response falls short of the analog one near the
 band limit f2 (by 12 % at 100 Hz with 512 Hz sampling). A record sampled below
-:data:`FILTER_RATE` is therefore resampled up by an integer factor (``scipy.signal.resample_poly``),
-filtered there and taken back at its own rate; the weighted r.m.s. of a sine then matches
+:data:`FILTER_RATE` is therefore resampled up by an integer factor (``scipy.signal.resample_poly``,
+ends continued with the end values), filtered there and taken back at its own rate, block by block so
+the memory used stays near one copy of the record; the weighted r.m.s. of a sine then matches
 A/sqrt(2) |W(f)| within 1 % up to f2. A record whose Nyquist frequency is below
 :data:`NYQUIST_MARGIN` x f2 does not hold the weighting's band and is refused.
 
@@ -198,13 +199,37 @@ def apply(acceleration: np.ndarray, fs: float, name: str | Weighting) -> np.ndar
     Causal filtering (as a weighting meter does) that starts in the steady state of the first sample;
     records sampled below :data:`FILTER_RATE` are filtered at an integer multiple of their rate.
     """
-    from scipy.signal import resample_poly, sosfilt, sosfilt_zi
+    from scipy.signal import sosfilt, sosfilt_zi
 
     rate = check_rate(name, fs)
     x = samples.signal(acceleration, "acceleration", min_samples=2)
     factor = oversampling(rate)
-    if factor > 1:
-        x = resample_poly(x, factor, 1, padtype="line")
     sos = digital_sos(name, rate * factor)
-    weighted, _ = sosfilt(sos, x, zi=sosfilt_zi(sos) * x[0])
-    return np.ascontiguousarray(weighted[::factor])
+    start = sosfilt_zi(sos) * x[0]
+    if factor == 1:
+        weighted, _ = sosfilt(sos, x, zi=start)
+        return np.asarray(weighted)
+    return _oversampled(x, factor, sos, start)
+
+
+BLOCK = 1 << 16
+"""Record samples resampled and filtered at a time, so memory does not grow with the oversampling factor."""
+MARGIN = 64
+"""Record samples added on each side of a block before resampling (the resampling filter reaches 10)."""
+
+
+def _oversampled(x: np.ndarray, factor: int, sos: np.ndarray, state: np.ndarray) -> np.ndarray:
+    """Resample ``x`` up by ``factor``, filter with ``sos`` from ``state`` and keep every factor-th sample,
+    block by block; interior block edges are resampled with a margin and trimmed, so the result equals
+    that of the whole record at once."""
+    from scipy.signal import resample_poly, sosfilt
+
+    size = x.size
+    weighted = np.empty(size)
+    for begin in range(0, size, BLOCK):
+        stop = min(size, begin + BLOCK)
+        lo, hi = max(0, begin - MARGIN), min(size, stop + MARGIN)
+        dense = resample_poly(x[lo:hi], factor, 1, padtype="edge")[(begin - lo) * factor:(stop - lo) * factor]
+        filtered, state = sosfilt(sos, dense, zi=state)
+        weighted[begin:stop] = filtered[::factor]
+    return weighted

@@ -162,6 +162,7 @@ def test_integration_against_the_trapezoidal_rule() -> None:
     (lambda: ppv.find_events([np.zeros(100), np.zeros(99)], FS, 1e-3, 1.0), "different lengths"),
     (lambda: ppv.peak_vector_sum([np.zeros(9)] * 4, FS), "one to three velocity axes"),
     (lambda: ppv.axis_peak(np.zeros(100), -5.0), "sample rate must be a positive"),
+    (lambda: ppv.crossing_frequency(np.zeros(100), FS, 100), "sample 100 is not in a record of 100 samples"),
 ])
 def test_bad_input_is_refused_with_a_clear_message(call, message: str) -> None:  # noqa: ANN001
     with pytest.raises(ValueError, match=message):

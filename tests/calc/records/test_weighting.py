@@ -169,3 +169,17 @@ def test_weighting_is_linear(scale: float, seed: int) -> None:
     x = np.random.default_rng(seed).normal(size=1024)
     expected = scale * weighting.apply(x, fs, "Wk")
     np.testing.assert_allclose(weighting.apply(scale * x, fs, "Wk"), expected, atol=1e-9 * np.abs(expected).max())
+
+
+def test_block_by_block_filtering_equals_the_whole_record_at_once() -> None:
+    # Oracle: scipy.signal.resample_poly of the whole record, scipy.signal.sosfilt from the first sample's steady
+    # state (scipy.signal.sosfilt_zi), every factor-th sample kept
+    from scipy.signal import resample_poly, sosfilt, sosfilt_zi
+
+    fs = 500.0
+    x = np.random.default_rng(5).normal(size=2 * weighting.BLOCK + 777) + 0.3
+    factor = weighting.oversampling(fs)
+    sos = weighting.digital_sos("Wm", fs * factor)
+    dense = resample_poly(x, factor, 1, padtype="edge")
+    expected, _ = sosfilt(sos, dense, zi=sosfilt_zi(sos) * x[0])
+    np.testing.assert_allclose(weighting.apply(x, fs, "Wm"), expected[::factor], rtol=1e-9, atol=1e-12)
