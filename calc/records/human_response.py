@@ -13,6 +13,8 @@ weighted quantity take the frequency-weighted acceleration a_w (see :mod:`.weigh
 - VDV of a day or night of N like events: (N VDV_event^4)^(1/4); of a continuous vibration measured
   over T_m, scaled to a period T: VDV_m (T/T_m)^(1/4) (BS 6472-1:2008).
 - estimated VDV, 1.4 a_w,rms t^0.25: only for crest factors below 6 (BS 6472-1:2008).
+
+The ISO 2631-1 clause numbers above are from memory; the definitions themselves are standard.
 """
 
 from __future__ import annotations

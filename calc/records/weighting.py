@@ -16,7 +16,7 @@ steady state of the first sample so an offset in the record adds no start-up tra
 
 The bilinear transform squeezes the whole analog frequency axis below the Nyquist frequency, so at
 the usual record rates (256 to 1000 Hz) the digital response falls short of the analog one near the
-band limit f2 (by 12 % at 100 Hz with 512 Hz sampling). A record sampled below
+band limit f2 (by about 13 % at 100 Hz with 512 Hz sampling). A record sampled below
 :data:`FILTER_RATE` is therefore resampled up by an integer factor (``scipy.signal.resample_poly``,
 ends continued with the end values), filtered there and taken back at its own rate, block by block so
 the memory used stays near one copy of the record; the weighted r.m.s. of a sine then matches

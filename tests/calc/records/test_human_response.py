@@ -19,8 +19,8 @@ def sine(amplitude: float, frequency: float, fs: float, duration: float) -> np.n
 
 
 def test_vdv_of_a_sine_has_its_closed_form() -> None:
-    # Source: VDV = (int a^4 dt)^(1/4) (ISO 2631-1:1997 6.3.2); the mean of sin^4 is 3/8, so a sine of amplitude
-    # A over T gives A (3T/8)^(1/4)
+    # Source: VDV = (int a^4 dt)^(1/4) (ISO 2631-1:1997 6.3.2, clause number from memory); the mean of sin^4
+    # is 3/8, so a sine of amplitude A over T gives A (3T/8)^(1/4)
     amplitude, duration = 0.3, 20.0
     value = hr.vdv(sine(amplitude, 8.0, 1000.0, duration), 1000.0)
     assert value == pytest.approx(amplitude * (3 * duration / 8) ** 0.25, rel=1e-9)
@@ -38,7 +38,8 @@ def test_vdv_of_a_weighted_sine_through_assess() -> None:
 
 
 def test_mtvv_of_a_steady_sine_equals_its_rms() -> None:
-    # Source: running r.m.s. over 1 s (ISO 2631-1:1997 6.3.1) of a steady sine holding whole cycles is A/sqrt(2)
+    # Source: running r.m.s. over 1 s (ISO 2631-1:1997 6.3.1, clause number from memory) of a steady sine
+    # holding whole cycles is A/sqrt(2)
     fs = 1000.0
     value, _ = hr.mtvv(sine(0.2, 8.0, fs, 30.0), fs)
     assert value == pytest.approx(0.2 / math.sqrt(2), rel=1e-9)
@@ -109,7 +110,7 @@ def test_bs6472_vdv_ranges(value: float, period: str, label: str, low: float, hi
 
 def test_third_octave_bands_follow_iec_61260() -> None:
     # Source: IEC 61260-1:2014, base-10 bands: exact centre 1000 x 10^(n/10) Hz, edges centre x 10^(+-1/20);
-    # nominal centres 1, 1.25, 1.6, 2, 2.5, 3.15, 4, 5, 6.3, 8 Hz in each decade (from memory of Annex E)
+    # nominal centres 1, 1.25, 1.6, 2, 2.5, 3.15, 4, 5, 6.3, 8 Hz in each decade (nominal values from memory)
     nominal, centre, lower, upper = hr.third_octave_bands(0.8, 12.5)
     assert nominal.tolist() == [0.8, 1.0, 1.25, 1.6, 2.0, 2.5, 3.15, 4.0, 5.0, 6.3, 8.0, 10.0, 12.5]
     np.testing.assert_allclose(centre, 1000 * 10 ** (np.arange(-31, -18) / 10), rtol=1e-12)
@@ -179,7 +180,8 @@ def test_bad_input_is_refused_with_a_clear_message(call, message: str) -> None: 
 @given(arrays(np.float64, st.integers(min_value=4, max_value=400), elements=st.floats(-50, 50)),
        st.integers(min_value=2, max_value=398))
 def test_vdv_of_a_record_is_the_fourth_power_sum_of_its_parts(values: np.ndarray, cut: int) -> None:
-    # Source: VDV = (int a^4 dt)^(1/4) (ISO 2631-1:1997 6.3.2): the integral adds over consecutive parts
+    # Source: VDV = (int a^4 dt)^(1/4) (ISO 2631-1:1997 6.3.2, clause number from memory): the integral adds
+    # over consecutive parts
     cut = min(cut, values.size - 2)
     whole = hr.vdv(values, 100.0)
     parts = hr.vdv_combined([hr.vdv(values[:cut], 100.0), hr.vdv(values[cut:], 100.0)])
