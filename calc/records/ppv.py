@@ -61,8 +61,10 @@ def velocity_from_acceleration(acceleration: np.ndarray, fs: float, high_pass: f
         raise ValueError(f"the high-pass corner {corner:g} Hz must be below the Nyquist frequency {rate / 2:g} Hz")
     if isinstance(order, bool) or int(order) != order or not 1 <= order <= 8:
         raise ValueError(f"the high-pass order must be a whole number from 1 to 8, not {order!r}")
-    needed = max(8, math.ceil(MIN_CORNER_PERIODS * rate / corner))
-    a = samples.signal(acceleration, "acceleration", min_samples=needed)
+    a = samples.signal(acceleration, "acceleration", min_samples=8)
+    if a.size < MIN_CORNER_PERIODS * rate / corner:
+        raise ValueError(f"the acceleration lasts {a.size / rate:.3g} s; a high-pass at {corner:g} Hz needs at "
+                         f"least {MIN_CORNER_PERIODS / corner:.3g} s ({MIN_CORNER_PERIODS:g} periods of its corner)")
     velocity = cumulative_trapezoid(a - a.mean(), dx=1.0 / rate, initial=0.0)
     velocity -= velocity.mean()
     sos = butter(int(order), corner, btype="highpass", fs=rate, output="sos")
