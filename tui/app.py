@@ -8,6 +8,7 @@ after, which is when the core (pint, the unit reader) is loaded.
 from __future__ import annotations
 
 import asyncio
+import gc
 import os
 import signal
 from collections.abc import Callable, Sequence
@@ -86,6 +87,7 @@ class FieldmodeApp(App[int]):
         """Every notice shown to the person, in order (tests read it)."""
         self.ascii_borders = (os.environ.get("TERM") == "linux" or os.environ.get("FIELDMODE_ASCII") == "1"
                               if ascii_borders is None else ascii_borders)
+        self.set_class(self.ascii_borders, "-ascii")  # before mounting: no second styling pass
         self._save_sequence = 0
         self._save_problem = ""
 
@@ -102,7 +104,6 @@ class FieldmodeApp(App[int]):
         return view
 
     def on_mount(self) -> None:
-        self.set_class(self.ascii_borders, "-ascii")
         self.query_one(KeyBar).show_keys([b for b in self.BINDINGS if isinstance(b, Binding)])
         self.current_view.focus_first()
         self._show_state()
@@ -163,6 +164,9 @@ class FieldmodeApp(App[int]):
             self._show_state()
             if not self._first_results_shown:
                 self._first_results_shown = True
+                if not gc.isenabled():  # paused while loading (cli.pause_garbage_collection)
+                    gc.freeze()
+                    gc.enable()
                 if self._on_first_results is not None:
                     self.call_after_refresh(self._on_first_results, self)
 

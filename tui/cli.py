@@ -141,12 +141,21 @@ def render_text(spec: CheckSpec, result: Result, system: str = "si") -> str:
     return "\n".join(lines)
 
 
+def pause_garbage_collection() -> None:
+    """Stop the cyclic garbage collector while the program loads.
+
+    Loading the core and Textual builds objects that live as long as the program; collecting
+    garbage among them costs more than it frees. A command runs for a fraction of a second and
+    never needs it; the app freezes what start-up built and collects again once its first
+    results are on screen (``FieldmodeApp``).
+    """
+    gc.disable()
+
+
 def main(argv: Sequence[str] | None = None) -> int:
     """Console entry point: run and turn failures into the exit-status contract."""
     if argv is None:
-        # A command runs for a fraction of a second and builds few cycles: collecting
-        # garbage during the core's imports costs more than it frees.
-        gc.disable()
+        pause_garbage_collection()
     try:
         return run(sys.argv[1:] if argv is None else argv)
     except SystemExit as done:  # argparse: --help, --version, or a usage error already reported

@@ -1,12 +1,13 @@
-"""Run an app headless until its first results are on screen, then exit; print when each stage was drawn.
+"""Run an app in the terminal it is given until its first results are on screen, then exit; report
+when each stage was drawn.
 
-    python app_first_frame.py bare    a Textual app showing one label (the reference)
-    python app_first_frame.py field   fieldmode's app on the demo, started as `fieldmode` starts it
+    python app_first_frame.py bare  REPORT   a Textual app showing one label (the reference)
+    python app_first_frame.py field REPORT   fieldmode's app on the demo, started as `fieldmode` starts it
 
-Prints ``frame <t>`` when the first frame is on screen (fieldmode: the fields and labels drawn) and,
-for fieldmode, ``results <t>`` when the first results are on screen; ``t`` is ``time.monotonic()``,
-the system-wide clock, comparable with the parent's (bench_app times from just before it started
-this process).
+Writes ``frame <t>`` to the file REPORT when the first frame is on screen (fieldmode: the fields and
+labels drawn) and, for fieldmode, ``results <t>`` when the first results are on screen; ``t`` is
+``time.monotonic()``, the system-wide clock, comparable with the parent's (bench_app starts this
+process in a pseudo-terminal of 80x24 and times from just before it started it).
 """
 
 from __future__ import annotations
@@ -35,11 +36,13 @@ def bare() -> None:
             stages["frame"] = time.monotonic()
             self.exit()
 
-    Bare().run(headless=True, size=(80, 24))
+    Bare().run()
 
 
 def field(state: Path) -> None:
-    import fieldmode.tui.cli  # noqa: F401  (the console script's module, as `fieldmode` loads it)
+    from fieldmode.tui import cli  # the console script's module, as `fieldmode` loads it
+
+    cli.pause_garbage_collection()  # as cli.main does for the console script
     from fieldmode.tui.app import run_app
 
     def frame(app: Any) -> None:
@@ -49,14 +52,14 @@ def field(state: Path) -> None:
         stages["results"] = time.monotonic()
         app.exit()
 
-    run_app(state, on_first_frame=frame, on_first_results=results, headless=True, size=(80, 24))
+    run_app(state, on_first_frame=frame, on_first_results=results)
 
 
 if __name__ == "__main__":
-    if sys.argv[1] == "bare":
+    mode, report = sys.argv[1], Path(sys.argv[2])
+    if mode == "bare":
         bare()
     else:
         with tempfile.TemporaryDirectory() as folder:
             field(Path(folder))
-    for stage, when in stages.items():
-        print(f"{stage} {when!r}")
+    report.write_text("".join(f"{stage} {when!r}\n" for stage, when in stages.items()))

@@ -3,10 +3,15 @@
 from __future__ import annotations
 
 import asyncio
+import fcntl
+import os
+import pty
 import statistics
+import struct
 import subprocess
 import sys
 import tempfile
+import termios
 import time
 from pathlib import Path
 
@@ -20,23 +25,45 @@ ROUNDS = 9
 
 
 def _start(mode: str) -> dict[str, float]:
-    """Seconds from starting ``app_first_frame.py mode`` to each stage it reports, and to its exit."""
-    command = [str(VENV_BIN / "python"), str(HERE / "app_first_frame.py"), mode]
-    start = time.monotonic()
-    done = subprocess.run(command, check=True, capture_output=True, text=True)
-    end = time.monotonic()
-    stages = {line.split()[0]: float(line.split()[1]) - start for line in done.stdout.splitlines() if line.strip()}
+    """Seconds from starting ``app_first_frame.py mode`` in an 80x24 pseudo-terminal to each stage it
+    reports, and to its exit."""
+    with tempfile.TemporaryDirectory() as folder:
+        report = Path(folder) / "stages"
+        command = [str(VENV_BIN / "python"), str(HERE / "app_first_frame.py"), mode, str(report)]
+        start = time.monotonic()
+        _run_in_terminal(command)
+        end = time.monotonic()
+        stages = {line.split()[0]: float(line.split()[1]) - start for line in report.read_text().splitlines()}
     return {**stages, "exit": end - start}
+
+
+def _run_in_terminal(command: list[str]) -> None:
+    """Run ``command`` with a pseudo-terminal of 80x24 as its terminal, reading what it draws."""
+    main, child = pty.openpty()
+    fcntl.ioctl(child, termios.TIOCSWINSZ, struct.pack("HHHH", 24, 80, 0, 0))
+    environment = {**os.environ, "TERM": "xterm-256color", "COLUMNS": "80", "LINES": "24"}
+    process = subprocess.Popen(command, stdin=child, stdout=child, stderr=child, env=environment,
+                               start_new_session=True)
+    os.close(child)
+    while True:  # the terminal's side: take everything the app writes until it closes
+        try:
+            if not os.read(main, 65536):
+                break
+        except OSError:
+            break
+    os.close(main)
+    if process.wait() != 0:
+        raise RuntimeError(f"{command} ended with status {process.returncode}")
 
 
 def _start_up() -> list[BenchRow]:
     """Start to the first frame (fields and labels drawn) and to the first results, against a bare app.
 
     Method: the two processes (a Textual app showing one label, and fieldmode's app started as
-    `fieldmode` starts it) run one after the other, round after round (ROUNDS rounds after one
-    warm-up round), so a busy spell on the shared machine hits both alike; each figure is the
-    median over the rounds. Each process reports when its stages were on screen (headless,
-    80x24); the time counts from just before the process was started, so it holds the
+    `fieldmode` starts it) run one after the other in an 80x24 pseudo-terminal, round after round
+    (ROUNDS rounds after one warm-up round), so a busy spell on the shared machine hits both alike;
+    each figure is the median over the rounds. Each process reports when its stages were on
+    screen; the time counts from just before the process was started, so it holds the
     interpreter's start, every import and the drawing, but not the exit.
     """
     samples: dict[str, list[dict[str, float]]] = {"bare": [], "field": []}
@@ -50,7 +77,7 @@ def _start_up() -> list[BenchRow]:
         return statistics.median(t[stage] for t in samples[mode])
 
     bare = median("bare", "frame")
-    note = f"medians of {ROUNDS} interleaved rounds, headless 80x24; whole processes to exit: app " \
+    note = f"medians of {ROUNDS} interleaved rounds in an 80x24 pseudo-terminal; whole processes to exit: app " \
            f"{median('field', 'exit') * 1000:.0f} ms, one-label app {median('bare', 'exit') * 1000:.0f} ms"
     return [
         BenchRow("app start to first frame (fields drawn) vs one-label Textual app", median("field", "frame"), bare,

@@ -93,6 +93,7 @@ class FieldRow(Widget):
         self.notes_shown = True
         """False in chart view, where the pane is too narrow for the readings."""
         self._focused = False
+        self._shape: tuple[int, int] | None = None
 
     def compose(self) -> ComposeResult:
         yield self.input
@@ -119,10 +120,14 @@ class FieldRow(Widget):
         return labels, notes, errors
 
     def _fit(self) -> None:
-        """Put the box below the label and make the row as tall as what it shows."""
+        """Put the box below the label and make the row as tall as what it shows (a layout pass only
+        when either changes)."""
         labels, notes, errors = self._lines(self.size.width or DEFAULT_WIDTH)
-        self.input.styles.margin = (len(labels), 0, 0, INDENT)
-        self.styles.height = len(labels) + len(notes) + len(errors)
+        shape = (len(labels), len(labels) + len(notes) + len(errors))
+        if shape != self._shape:
+            self._shape = shape
+            self.input.styles.margin = (shape[0], 0, 0, INDENT)
+            self.styles.height = shape[1]
 
     def on_resize(self) -> None:
         self._fit()
