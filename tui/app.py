@@ -29,6 +29,7 @@ from fieldmode.tui.workspace import Workspace
 if TYPE_CHECKING:
     from fieldmode.calc.framework.spec import CheckSpec
     from fieldmode.calc.typical_values import Row
+    from fieldmode.tui.workspace import Target
 
 # Dialogs, typical-value tables and the calc record writer are imported when first used: the
 # first frame waits for nothing it does not show.
@@ -281,23 +282,25 @@ class FieldmodeApp(App[int]):
     def action_own(self) -> None:
         view = self.current_view
         row = view.focused_row()
-        if row is None or not row.field.shared:
-            self.say("Ctrl+O works in a shared field (such as mass or damping).")
+        if row is None or self.workspace.meaning_key(view.spec.id, row.field.name) is None:
+            self.say("Ctrl+O works in a field shared with other checks (such as mass or damping).")
             return
         own = self.workspace.toggle_own(view.spec.id, row.field.name)
-        self.say(f"{row.field.label}: " + ("own value in this check" if own
-                                           else "shared again with the checks showing the same text"))
-        view.request_compute()
+        if own:
+            self.say(f"{row.field.label}: a value of its own in {view.spec.id}")
+        else:
+            text = self.workspace.texts[view.spec.id][row.field.name]
+            self.say(f"{row.field.label}: shared again, {text} as in "
+                     f"{', '.join(c for c, _ in self.workspace.sharing(view.spec.id, row.field.name))}")
+        view.sync()
         self.save_soon()
 
     def action_send(self) -> None:
         from fieldmode.tui.evaluation import evaluate_guarded
+        from fieldmode.tui.widgets.send_screen import SendScreen
 
         view = self.current_view
         spec = view.spec
-        if not spec.sends:
-            self.say(f"{spec.id} has no results to send to other checks.")
-            return
         texts = self.workspace.texts[spec.id]
         outcome = view.outcome
         if (outcome is None or outcome.result is None or outcome.texts != texts
@@ -306,17 +309,24 @@ class FieldmodeApp(App[int]):
         if outcome.result is None:
             self.say("Nothing sent: fix the inputs marked ! first.", warning=True)
             return
-        sent = self.workspace.send(spec.id, outcome.result)
-        if not sent:
-            self.say("No other check has a field for these results.")
+        targets = self.workspace.send_targets(spec.id, outcome.result)
+        if not targets:
+            self.say(f"No other check has a field that means the same as a result of {spec.id}.")
             return
-        for item in sent:
-            if item.check in self.views:
-                self.views[item.check].stale = True
-        lines: dict[str, list[str]] = {}
-        for item in sent:
-            lines.setdefault(f"{item.field} = {item.text}", []).append(item.check)
-        self.say("Sent " + "; ".join(f"{what} to {', '.join(checks)}" for what, checks in lines.items()))
+        notes = self.workspace.not_offered(spec.id, outcome.result)
+        self.push_screen(SendScreen(spec.id, targets, notes), self._send)
+
+    def _send(self, targets: list[Target] | None) -> None:
+        applied = self.workspace.apply(targets or [])
+        if not applied:
+            self.say("Nothing sent.")
+            return
+        for target in applied:
+            for check in target.checks:
+                if check in self.views:
+                    self.views[check].stale = True
+        self.say("Sent " + "; ".join(f"{target.label} = {target.text} to {', '.join(target.checks)}"
+                                     for target in applied))
         self.save_soon()
 
     def action_record(self) -> None:

@@ -20,7 +20,11 @@ from typing import Any
 from fieldmode.tui.files import describe_os_error, write_atomic
 
 FORMAT = "fieldmode-session"
-VERSION = 1
+VERSION = 2
+"""Version 2 keeps each shared value once ("shared", by meaning) and the project fields; version 1
+files (every text per check) are read too."""
+PROJECT_FIELDS = ("project", "job", "engineer", "note")
+"""What the calc record says about the work, typed once per session."""
 MAX_SESSION_BYTES = 2_000_000
 """A session file larger than this is not read (it cannot be one we wrote)."""
 
@@ -45,11 +49,16 @@ class SessionData:
     """Id of the check on screen."""
     own: dict[str, list[str]] = field(default_factory=dict)
     """Check id -> shared fields given their own value there."""
+    shared: dict[str, str] = field(default_factory=dict)
+    """Meaning key -> the one text of a shared value (empty in a version 1 file)."""
+    project: dict[str, str] = field(default_factory=dict)
+    """Project, job, engineer, note."""
 
     def to_json(self) -> str:
         return json.dumps({"format": FORMAT, "version": VERSION,
                            "saved": time.strftime("%Y-%m-%dT%H:%M:%S%z"), "system": self.system,
-                           "current": self.current, "checks": self.texts, "own": self.own},
+                           "current": self.current, "checks": self.texts, "shared": self.shared,
+                           "own": self.own, "project": self.project},
                           indent=1, ensure_ascii=False)
 
 
@@ -73,8 +82,13 @@ def parse_session(text: str) -> SessionData:
     if not isinstance(own, dict) or not all(isinstance(v, list) and all(isinstance(n, str) for n in v)
                                             for v in own.values()):
         raise SessionFormatError("the own-value list in the session file is not names")
+    shared, project = data.get("shared", {}), data.get("project", {})
+    for name, table in (("shared values", shared), ("project fields", project)):
+        if not isinstance(table, dict) or not all(isinstance(k, str) and isinstance(v, str) for k, v in table.items()):
+            raise SessionFormatError(f"the {name} in the session file are not texts")
     return SessionData({str(k): dict(v) for k, v in checks.items()}, system, current,
-                       {str(k): list(v) for k, v in own.items()})
+                       {str(k): list(v) for k, v in own.items()}, dict(shared),
+                       {k: v for k, v in project.items() if k in PROJECT_FIELDS})
 
 
 @dataclass

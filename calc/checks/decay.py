@@ -6,6 +6,7 @@ from typing import TYPE_CHECKING
 
 from fieldmode.calc.demo import HEEL_DROP, demo_file
 from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.meaning import STRUCTURE, Meaning
 from fieldmode.calc.framework.result import Flag, Reference, Result, Value, quantity
 from fieldmode.calc.framework.spec import SIGNAL, CheckSpec, Field, Series
 from fieldmode.calc.records.columns import RECORD_COLUMN_FIELDS
@@ -78,8 +79,10 @@ def _values(found: Decay, kind: str) -> dict[str, Value]:
     from fieldmode.calc.records.envelope import damping_from_sigma
 
     values = {
-        "natural_frequency": quantity("Natural frequency", "frequency", found.natural_frequency),
-        "damping_ratio": quantity("Damping ratio (decay fit)", "ratio", found.damping_ratio),
+        "natural_frequency": quantity("Natural frequency", "frequency", found.natural_frequency,
+                                      meaning=Meaning("natural frequency", STRUCTURE)),
+        "damping_ratio": quantity("Damping ratio (decay fit)", "ratio", found.damping_ratio,
+                                  meaning=Meaning("damping ratio", STRUCTURE)),
         "damping_ratio_low": quantity("Damping ratio, 95 % low", "ratio", found.damping_ratio_low),
         "damping_ratio_high": quantity("Damping ratio, 95 % high", "ratio", found.damping_ratio_high),
         "log_decrement": quantity("Log decrement (per cycle)", "number", found.log_decrement),
@@ -119,7 +122,6 @@ SPEC = CheckSpec(
     summary="natural frequency and damping ratio from a recorded free decay (heel drop, tap, release)",
     fields=FIELDS,
     compute=compute,
-    sends={"natural_frequency": "frequency", "damping_ratio": "damping"},
     series=(
         Series("time", "Time", "time"),
         Series("signal", "Record as analysed", SIGNAL, "time"),

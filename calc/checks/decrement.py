@@ -6,6 +6,7 @@ import math
 from typing import TYPE_CHECKING
 
 from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.meaning import STRUCTURE, Meaning
 from fieldmode.calc.framework.result import Flag, Reference, Result, quantity
 from fieldmode.calc.framework.spec import CheckSpec, Field
 
@@ -40,7 +41,7 @@ def compute(inputs: Inputs) -> Result:
     decrement, zeta = decrement_from_peaks(first, later, cycles)
     values = {
         "log_decrement": quantity("Log decrement (per cycle)", "number", decrement),
-        "damping_ratio": quantity("Damping ratio", "ratio", zeta),
+        "damping_ratio": quantity("Damping ratio", "ratio", zeta, meaning=Meaning("damping ratio", STRUCTURE)),
         "damping_ratio_small_damping": quantity("Damping ratio, delta / 2 pi form", "ratio", decrement / (2 * math.pi)),
         "amplitude_ratio": quantity("Amplitude ratio u_i / u_(i+n)", "number", first / later),
         "cycles_to_halve": quantity("Cycles to halve amplitude", "number", math.log(2) / decrement),
@@ -62,5 +63,4 @@ SPEC = CheckSpec(
     summary="log decrement and damping ratio from two peak amplitudes n cycles apart",
     fields=FIELDS,
     compute=compute,
-    sends={"damping_ratio": "damping"},
 )

@@ -7,6 +7,7 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.meaning import BUILDING, SEISMIC_ACTION, Meaning
 from fieldmode.calc.framework.result import SEISMIC_CAUTION, Flag, Reference, Result, Value, quantity, word
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 from fieldmode.calc.physics import design_spectrum
@@ -20,32 +21,35 @@ MAX_PERIOD = 10.0
 
 GROUND_FIELDS = (
     Field("ground_type", "Ground type", "choice", "C", choices=design_spectrum.GROUND_TYPES, shared=True,
-          help="EN 1998-1 Table 3.1"),
+          help="EN 1998-1 Table 3.1", meaning=Meaning("ground type", SEISMIC_ACTION)),
     Field("spectrum_type", "Spectrum type", "choice", "1", choices=design_spectrum.SPECTRUM_TYPES,
-          required=False, shared=True, help="1 for larger earthquakes (Ms > 5.5), 2 for smaller; default 1"),
+          required=False, shared=True, help="1 for larger earthquakes (Ms > 5.5), 2 for smaller; default 1",
+    meaning=Meaning("spectrum type", SEISMIC_ACTION)),
     Field("design_ground_acceleration", "Ground acceleration agR", "acceleration", "0.16 g", "g",
-          shared=True, help="design ground acceleration on type A ground; ag = importance x agR"),
+          shared=True, help="design ground acceleration on type A ground; ag = importance x agR",
+    meaning=Meaning("reference ground acceleration agR", SEISMIC_ACTION)),
     Field("importance", "Importance factor", "number", "1.0", "", required=False, shared=True,
-          help="gamma_I (EN 1998-1 4.2.5); default 1.0"),
+          help="gamma_I (EN 1998-1 4.2.5); default 1.0", meaning=Meaning("importance factor", BUILDING)),
 )
 SHAPE_FIELDS = (
     Field("soil_factor", "Soil factor S", "number", "", "", required=False,
-          help="National Annex value; default from Table 3.2 / 3.3"),
+          help="National Annex value; default from Table 3.2 / 3.3", meaning=Meaning("soil factor S", SEISMIC_ACTION)),
     Field("corner_period_tb", "Corner period TB", "time", "", "s", required=False,
-          help="start of the constant-acceleration plateau"),
+          help="start of the constant-acceleration plateau", meaning=Meaning("corner period TB", SEISMIC_ACTION)),
     Field("corner_period_tc", "Corner period TC", "time", "", "s", required=False,
-          help="end of the constant-acceleration plateau"),
+          help="end of the constant-acceleration plateau", meaning=Meaning("corner period TC", SEISMIC_ACTION)),
     Field("corner_period_td", "Corner period TD", "time", "", "s", required=False,
-          help="start of the constant-displacement range"),
+          help="start of the constant-displacement range", meaning=Meaning("corner period TD", SEISMIC_ACTION)),
 )
 FIELDS = (
     *GROUND_FIELDS,
-    Field("damping", "Damping ratio", "ratio", "5 %", "", required=False, help="default 5 %"),
-    Field("period", "Period", "time", "0.53 s", "s", shared=True),
+    Field("damping", "Damping ratio", "ratio", "5 %", "", required=False, help="default 5 %",
+          meaning=Meaning("damping ratio", BUILDING)),
+    Field("period", "Period", "time", "0.53 s", "s", shared=True, meaning=Meaning("fundamental period", BUILDING)),
     Field("behaviour_factor", "Behaviour factor q", "number", "4", "", required=False,
-          help="gives the design spectrum of EN 1998-1 3.2.2.5"),
+          help="gives the design spectrum of EN 1998-1 3.2.2.5", meaning=Meaning("behaviour factor q", BUILDING)),
     Field("mass", "Mass (base shear)", "mass", "850 t", "t", required=False,
-          help="total mass above the base; a weight is read as W/g0"),
+          help="total mass above the base; a weight is read as W/g0", meaning=Meaning("total mass", BUILDING)),
     *SHAPE_FIELDS,
 )
 

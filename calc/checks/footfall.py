@@ -7,6 +7,7 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.meaning import STRUCTURE, Meaning
 from fieldmode.calc.framework.result import Flag, Reference, Result, Value, quantity, word
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 
@@ -21,7 +22,7 @@ NEAR = 0.10
 
 FIELDS = (
     Field("frequency", "Vertical frequency", "frequency", "2.1 Hz", "Hz", shared=True,
-          help="the first vertical natural frequency"),
+          help="the first vertical natural frequency", meaning=Meaning("natural frequency", STRUCTURE)),
     Field("higher_frequencies", "Higher vertical frequencies", "frequency", "", "Hz", many=True, required=False,
           help="further vertical (or torsional) natural frequencies, a list"),
     Field("lateral_frequency", "Lateral frequencies", "frequency", "1.05 Hz", "Hz", many=True, required=False,

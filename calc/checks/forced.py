@@ -6,6 +6,7 @@ import math
 from typing import TYPE_CHECKING
 
 from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.meaning import MACHINE, STRUCTURE, Meaning
 from fieldmode.calc.framework.result import Flag, Reference, Result, quantity
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 from fieldmode.calc.physics import forced, sdof
@@ -14,14 +15,16 @@ if TYPE_CHECKING:
     from fieldmode.calc.framework.reading import Inputs
 
 FIELDS = (
-    Field("mass", "Mass", "mass", "9.6 t", "t", shared=True, help="a mass, or a weight read as W/g0"),
-    Field("stiffness", "Stiffness", "stiffness", "42 kN/mm", "kN/mm", help="of the support under the mass"),
-    Field("damping", "Damping ratio", "ratio", "2 %", "", shared=True),
+    Field("mass", "Mass", "mass", "9.6 t", "t", shared=True, help="a mass, or a weight read as W/g0",
+          meaning=Meaning("mass", STRUCTURE)),
+    Field("stiffness", "Stiffness", "stiffness", "42 kN/mm", "kN/mm", help="of the support under the mass",
+          meaning=Meaning("stiffness", STRUCTURE)),
+    Field("damping", "Damping ratio", "ratio", "2 %", "", shared=True, meaning=Meaning("damping ratio", STRUCTURE)),
     Field("frequency", "Operating frequency", "frequency", "740 rpm", "Hz", shared=True,
-          help="Hz, or a speed in rpm"),
-    Field("force", "Force amplitude", "force", "", "kN", group="load"),
+          help="Hz, or a speed in rpm", meaning=Meaning("operating frequency", MACHINE)),
+    Field("force", "Force amplitude", "force", "", "kN", group="load", meaning=Meaning("force amplitude", MACHINE)),
     Field("unbalance", "Unbalance m e", "unbalance", "0.35 kg m", "kg*m", group="load",
-          help="rotating mass x eccentricity; force = m e w^2"),
+          help="rotating mass x eccentricity; force = m e w^2", meaning=Meaning("unbalance", MACHINE)),
 )
 
 REFERENCES = (
@@ -61,7 +64,8 @@ def compute(inputs: Inputs) -> Result:
         peak_ratio = forced.peak_ratio(zeta)
         peak_amplitude = static * peak_gain
     values = {
-        "natural_frequency": quantity("Natural frequency", "frequency", natural_frequency),
+        "natural_frequency": quantity("Natural frequency", "frequency", natural_frequency,
+                                      meaning=Meaning("natural frequency", STRUCTURE)),
         "frequency_ratio": quantity("Frequency ratio r = f/fn", "number", r),
         "amplification": quantity("Dynamic amplification R_d", "number", gain),
         "phase": quantity("Phase lag", "angle", float(forced.phase(r, zeta))),

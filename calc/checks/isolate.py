@@ -8,6 +8,7 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.meaning import MACHINE, MOUNTS, Meaning
 from fieldmode.calc.framework.result import Flag, Reference, Result, Value, quantity
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 from fieldmode.calc.physics import forced, isolate, sdof
@@ -18,15 +19,16 @@ if TYPE_CHECKING:
 
 FIELDS = (
     Field("frequency", "Operating frequency", "frequency", "740 rpm", "Hz", shared=True,
-          help="Hz, or a speed in rpm"),
-    Field("mass", "Mass on the mounts", "mass", "9.6 t", "t", shared=True, help="a mass, or a weight read as W/g0"),
-    Field("mounts", "Number of mounts", "count", "4", ""),
+          help="Hz, or a speed in rpm", meaning=Meaning("operating frequency", MACHINE)),
+    Field("mass", "Mass on the mounts", "mass", "9.6 t", "t", shared=True, help="a mass, or a weight read as W/g0",
+          meaning=Meaning("mass", MACHINE)),
+    Field("mounts", "Number of mounts", "count", "4", "", meaning=Meaning("number of mounts", MOUNTS)),
     Field("damping", "Mount damping ratio", "ratio", "2 %", "",
-          help="steel springs about 0.5-1 %, rubber about 5 %"),
+          help="steel springs about 0.5-1 %, rubber about 5 %", meaning=Meaning("damping ratio", MOUNTS)),
     Field("stiffness", "Mount stiffness, total", "stiffness", "", "kN/mm", required=False,
-          help="all mounts together; give it, a target isolation, or both"),
+          help="all mounts together; give it, a target isolation, or both", meaning=Meaning("stiffness", MOUNTS)),
     Field("target_isolation", "Target isolation", "ratio", "90 %", "", required=False,
-          help="fraction of the force kept from the support, e.g. 90 %"),
+          help="fraction of the force kept from the support, e.g. 90 %", meaning=Meaning("target isolation", MOUNTS)),
 )
 
 REFERENCES = (

@@ -5,6 +5,7 @@ from __future__ import annotations
 from typing import TYPE_CHECKING
 
 from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.meaning import STRUCTURE, Meaning
 from fieldmode.calc.framework.result import Flag, Reference, Result, Value, quantity, word
 from fieldmode.calc.framework.spec import CheckSpec, Field
 from fieldmode.calc.physics import member
@@ -89,7 +90,7 @@ def compute(inputs: Inputs) -> Result:
             formula = member.COLUMN_SUPPORTS[ends].formula
     stiffness = count * per_member
     values: dict[str, Value] = {
-        "stiffness": quantity("Stiffness", "stiffness", stiffness),
+        "stiffness": quantity("Stiffness", "stiffness", stiffness, meaning=Meaning("stiffness", STRUCTURE)),
         "stiffness_per_member": quantity("Stiffness of one member", "stiffness", per_member),
         "formula": word("Formula", f"k = {count} x {formula}" if count > 1 else f"k = {formula}"),
         "modulus": quantity("Young's modulus E", "modulus", modulus),
@@ -116,7 +117,8 @@ def _beam_dynamics(inputs: Inputs, modulus: float, second_moment: float, span: f
     frequency = member.beam_frequency(modulus, second_moment, span, mass_per_length, ends)
     deflection = member.self_weight_deflection(modulus, second_moment, span, mass_per_length, ends)
     return {
-        "natural_frequency": quantity("First natural frequency", "frequency", frequency),
+        "natural_frequency": quantity("First natural frequency", "frequency", frequency,
+                                      meaning=Meaning("natural frequency", STRUCTURE)),
         "mass": quantity("Mass of the beams (m L)", "mass", count * mass_per_length * span),
         "equivalent_mass": quantity("Equivalent mass at midspan (k/w1^2)", "mass",
                                     member.equivalent_mass(stiffness, frequency)),
@@ -134,7 +136,7 @@ def _springs(inputs: Inputs) -> Result:
     combine = member.springs_in_series if arrangement == "series" else member.springs_in_parallel
     stiffness = combine(stiffnesses)
     values = {
-        "stiffness": quantity("Stiffness", "stiffness", stiffness),
+        "stiffness": quantity("Stiffness", "stiffness", stiffness, meaning=Meaning("stiffness", STRUCTURE)),
         "formula": word("Formula", "1/k = sum 1/k_i" if arrangement == "series" else "k = sum k_i"),
         "arrangement": word("Arrangement", f"{len(stiffnesses)} springs in {arrangement}"),
     }
@@ -205,5 +207,4 @@ SPEC = CheckSpec(
     summary="stiffness of beams, columns, bars and springs; beam mass and first frequency",
     fields=FIELDS,
     compute=compute,
-    sends={"stiffness": "stiffness"},
 )

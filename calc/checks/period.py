@@ -7,6 +7,7 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.meaning import BUILDING, Meaning
 from fieldmode.calc.framework.result import SEISMIC_CAUTION, Flag, Reference, Result, quantity
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 from fieldmode.calc.physics import period
@@ -18,9 +19,10 @@ MAX_HEIGHT = 1000.0
 """Tallest building accepted (m)."""
 
 FIELDS = (
-    Field("height", "Building height", "length", "11.5 m", "m", shared=True),
+    Field("height", "Building height", "length", "11.5 m", "m", shared=True, meaning=Meaning("height", BUILDING)),
     Field("system", "Structural system", "choice", "steel-moment-frame", choices=period.SYSTEMS,
-          help="steel-eccentric-braced includes buckling-restrained braced frames in ASCE 7"),
+          help="steel-eccentric-braced includes buckling-restrained braced frames in ASCE 7",
+    meaning=Meaning("structural system", BUILDING)),
 )
 
 REFERENCES = (
@@ -35,7 +37,8 @@ def compute(inputs: Inputs) -> Result:
     system = inputs.text("system")
     ct_asce, exponent = period.ASCE_CT[system]
     values = {
-        "period": quantity("T1, EN 1998-1 4.3.3.2.2", "time", period.en1998(height, system)),
+        "period": quantity("T1, EN 1998-1 4.3.3.2.2", "time", period.en1998(height, system),
+                           meaning=Meaning("fundamental period", BUILDING)),
         "period_asce": quantity("Ta, ASCE 7-16 12.8.2.1", "time", period.asce7(height, system)),
         "ct_en": quantity("Ct, EN 1998-1 (H in m)", "number", period.EN_CT[system]),
         "ct_asce": quantity("Ct, ASCE 7 Table 12.8-2 (SI)", "number", ct_asce),
@@ -61,7 +64,6 @@ SPEC = CheckSpec(
     fields=FIELDS,
     compute=compute,
     caution=SEISMIC_CAUTION,
-    sends={"period": "period"},
     series=(
         Series("height", "Building height", "length"),
         Series("period_en", "T1, EN 1998-1", "time", "height"),

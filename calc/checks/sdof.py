@@ -8,6 +8,7 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.meaning import STRUCTURE, Meaning
 from fieldmode.calc.framework.result import Flag, Reference, Result, quantity, word
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 from fieldmode.calc.physics import sdof
@@ -17,13 +18,15 @@ if TYPE_CHECKING:
 
 FIELDS = (
     Field("mass", "Mass", "mass", "9.6 t", "t", shared=True,
-          help="a mass, or a weight read as W/g0"),
-    Field("stiffness", "Stiffness", "stiffness", "42 kN/mm", "kN/mm", group="stiffness"),
+          help="a mass, or a weight read as W/g0", meaning=Meaning("mass", STRUCTURE)),
+    Field("stiffness", "Stiffness", "stiffness", "42 kN/mm", "kN/mm", group="stiffness",
+          meaning=Meaning("stiffness", STRUCTURE)),
     Field("static_deflection", "Static deflection", "length", "", "mm", group="stiffness",
-          help="deflection of the support under the weight"),
-    Field("damping", "Damping ratio", "ratio", "2 %", "", group="damping", required=False, shared=True),
+          help="deflection of the support under the weight", meaning=Meaning("static deflection", STRUCTURE)),
+    Field("damping", "Damping ratio", "ratio", "2 %", "", group="damping", required=False, shared=True,
+          meaning=Meaning("damping ratio", STRUCTURE)),
     Field("damping_coefficient", "Damping coefficient", "damping_coefficient", "", "kN*s/m",
-          group="damping", required=False),
+          group="damping", required=False, meaning=Meaning("damping coefficient", STRUCTURE)),
     Field("initial_displacement", "Initial displacement", "length", "1 mm", "mm", required=False),
     Field("initial_velocity", "Initial velocity", "velocity", "", "mm/s", required=False),
 )
@@ -51,15 +54,19 @@ def compute(inputs: Inputs) -> Result:
         if not inputs.has("damping"):
             flags.append(Flag("info", "no damping given: treated as undamped"))
     values = {
-        "natural_frequency": quantity("Natural frequency", "frequency", omega_n / (2 * math.pi)),
+        "natural_frequency": quantity("Natural frequency", "frequency", omega_n / (2 * math.pi),
+                                      meaning=Meaning("natural frequency", STRUCTURE)),
         "angular_frequency": quantity("Angular frequency", "angular_frequency", omega_n),
-        "natural_period": quantity("Natural period", "time", 2 * math.pi / omega_n),
-        "stiffness": quantity("Stiffness", "stiffness", stiffness),
+        "natural_period": quantity("Natural period", "time", 2 * math.pi / omega_n,
+                                   meaning=Meaning("natural period", STRUCTURE)),
+        "stiffness": quantity("Stiffness", "stiffness", stiffness, meaning=Meaning("stiffness", STRUCTURE)),
         "static_deflection": quantity("Static deflection (m g0 / k)", "length",
-                                      mass * sdof.STANDARD_GRAVITY / stiffness),
-        "damping_ratio": quantity("Damping ratio", "ratio", zeta),
+                                      mass * sdof.STANDARD_GRAVITY / stiffness,
+    meaning=Meaning("static deflection", STRUCTURE)),
+        "damping_ratio": quantity("Damping ratio", "ratio", zeta, meaning=Meaning("damping ratio", STRUCTURE)),
         "critical_damping": quantity("Critical damping", "damping_coefficient", c_cr),
-        "damping_coefficient": quantity("Damping coefficient", "damping_coefficient", zeta * c_cr),
+        "damping_coefficient": quantity("Damping coefficient", "damping_coefficient", zeta * c_cr,
+                                        meaning=Meaning("damping coefficient", STRUCTURE)),
         "regime": word("Regime", sdof.regime(zeta)),
     }
     if 0 < zeta < 1:

@@ -9,6 +9,7 @@ import numpy as np
 from fieldmode.calc.checks.design_spectrum import GROUND_FIELDS, design_ground_acceleration, read_shape, shape_flag
 from fieldmode.calc.demo import GROUND_MOTION, demo_file
 from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.meaning import BUILDING, Meaning
 from fieldmode.calc.framework.result import SEISMIC_CAUTION, Flag, Reference, Result, Value, quantity
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 from fieldmode.calc.physics import design_spectrum
@@ -38,16 +39,17 @@ FIELDS = (
     Field("signal_unit", "Signal unit", "choice", "g", choices=SIGNAL_UNITS, required=False,
           help="unit of the acceleration column; default from its header"),
     *RECORD_COLUMN_FIELDS,
-    Field("damping", "Damping ratio", "ratio", "5 %", "", required=False, help="default 5 %"),
+    Field("damping", "Damping ratio", "ratio", "5 %", "", required=False, help="default 5 %",
+          meaning=Meaning("damping ratio", BUILDING)),
     Field("period", "Period to mark", "time", "0.53 s", "s", required=False, shared=True,
-          help="results and time history at this period"),
+          help="results and time history at this period", meaning=Meaning("fundamental period", BUILDING)),
     Field("periods", "Periods", "time", "", "s", many=True, required=False,
           help="a list instead of the log-spaced grid"),
     Field("shortest_period", "Shortest period", "time", "0.02 s", "s", required=False),
     Field("longest_period", "Longest period", "time", "10 s", "s", required=False),
     Field("period_count", "Number of periods", "count", "200", required=False),
     *(Field(f.name, f.label, f.kind, f.default, f.unit, required=False, choices=f.choices, shared=True,
-            help="EN 1998-1 elastic spectrum overlaid when the ground acceleration is given")
+            help="EN 1998-1 elastic spectrum overlaid when the ground acceleration is given", meaning=f.meaning)
       for f in GROUND_FIELDS),
 )
 

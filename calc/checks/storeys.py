@@ -13,6 +13,7 @@ import numpy as np
 
 from fieldmode.calc.checks.design_spectrum import GROUND_FIELDS, SHAPE_FIELDS, design_ground_acceleration, read_shape
 from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.meaning import BUILDING, Meaning
 from fieldmode.calc.framework.result import SEISMIC_CAUTION, Flag, Reference, Result, Value, quantity, word
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 
@@ -33,10 +34,12 @@ CLOSE_PERIODS = 0.9
 
 SEISMIC_FIELDS = (
     *(Field(f.name, f.label, f.kind, f.default, f.unit, required=False, choices=f.choices, shared=True,
-            help=f.help + ("; leave empty for modes only" if f.name == "design_ground_acceleration" else ""))
+            help=f.help + ("; leave empty for modes only" if f.name == "design_ground_acceleration" else ""),
+            meaning=f.meaning)
       for f in GROUND_FIELDS),
     Field("behaviour_factor", "Behaviour factor q", "number", "", "", required=False,
-          help="gives the design spectrum (EN 1998-1 3.2.2.5); displacements are multiplied by q (4.3.4)"),
+          help="gives the design spectrum (EN 1998-1 3.2.2.5); displacements are multiplied by q (4.3.4)",
+    meaning=Meaning("behaviour factor q", BUILDING)),
     *SHAPE_FIELDS,
 )
 
@@ -51,13 +54,14 @@ SEISMIC_REFERENCES = (
 
 FIELDS = (
     Field("masses", "Storey masses", "mass", "310 t, 300 t, 240 t", "t", many=True,
-          help="bottom to top; masses or weights (read as W/g0)"),
+          help="bottom to top; masses or weights (read as W/g0)", meaning=Meaning("storey masses", BUILDING)),
     Field("stiffnesses", "Storey stiffnesses", "stiffness", "180 kN/mm, 160 kN/mm, 120 kN/mm", "kN/mm", many=True,
-          help="lateral stiffness of each storey, bottom to top"),
+          help="lateral stiffness of each storey, bottom to top", meaning=Meaning("storey stiffnesses", BUILDING)),
     Field("heights", "Storey heights", "length", "4.5 m, 3.5 m, 3.5 m", "m", many=True, required=False,
-          help="bottom to top; gives drift ratios and the chart's height axis"),
+          help="bottom to top; gives drift ratios and the chart's height axis",
+    meaning=Meaning("storey heights", BUILDING)),
     Field("damping", "Damping ratio", "ratio", "5 %", "", required=False,
-          help="of every mode, for Rayleigh damping and CQC (default 5 %)"),
+          help="of every mode, for Rayleigh damping and CQC (default 5 %)", meaning=Meaning("damping ratio", BUILDING)),
     Field("rayleigh_modes", "Rayleigh modes", "count", "1, 2", "", many=True, required=False,
           help="the two modes given the damping ratio exactly"),
     *SEISMIC_FIELDS,
@@ -86,14 +90,14 @@ def compute(inputs: Inputs) -> Result:
     periods = found.periods
     needed = storeys.modes_for_mass_share(ratios)
     values: dict[str, Value] = {
-        "period": quantity("Fundamental period", "time", periods[0]),
+        "period": quantity("Fundamental period", "time", periods[0], meaning=Meaning("fundamental period", BUILDING)),
         "periods": quantity("Periods", "time", periods),
         "frequencies": quantity("Frequencies", "frequency", found.omega / (2 * np.pi)),
         "mode_shapes": quantity("Mode shapes (per mode, roof = 1)", "number", found.shapes),
         "participation": quantity("Participation", "number", found.participation),
         "effective_mass_ratio": quantity("Effective mass", "ratio", ratios),
         "cumulative_mass_ratio": quantity("Cumulative mass", "ratio", np.cumsum(ratios)),
-        "total_mass": quantity("Total mass", "mass", total),
+        "total_mass": quantity("Total mass", "mass", total, meaning=Meaning("total mass", BUILDING)),
         "modes_for_90_percent": quantity("Modes for 90 % mass", "count", float(needed)),
     }
     flags = [Flag("warning", f"soft storey {storey}: stiffness {reason}")
@@ -220,7 +224,6 @@ SPEC = CheckSpec(
     fields=FIELDS,
     compute=compute,
     caution=SEISMIC_CAUTION,
-    sends={"period": "period"},
     series=(
         Series("storey", "Floor (0 = base)", "number"),
         Series("height", "Height above the base", "length", "storey"),

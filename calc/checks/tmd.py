@@ -8,6 +8,7 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from fieldmode.calc.framework.guard import overflow_guard
+from fieldmode.calc.framework.meaning import STRUCTURE, Meaning
 from fieldmode.calc.framework.result import Flag, Reference, Result, quantity
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 
@@ -25,10 +26,11 @@ CHART_POINTS = 120
 
 FIELDS = (
     Field("frequency", "Mode frequency", "frequency", "2.1 Hz", "Hz", shared=True,
-          help="natural frequency of the mode to be damped"),
-    Field("modal_mass", "Modal mass", "mass", "18 t", "t", help="a mass, or a weight read as W/g0"),
+          help="natural frequency of the mode to be damped", meaning=Meaning("natural frequency", STRUCTURE)),
+    Field("modal_mass", "Modal mass", "mass", "18 t", "t", help="a mass, or a weight read as W/g0",
+          meaning=Meaning("modal mass", STRUCTURE)),
     Field("damping", "Mode damping ratio", "ratio", "0.6 %", "", shared=True,
-          help="the structure's own damping in this mode"),
+          help="the structure's own damping in this mode", meaning=Meaning("damping ratio", STRUCTURE)),
     Field("mass_ratio", "Mass ratio", "ratio", "2 %", "", group="size",
           help="damper mass / modal mass, 0.1 % to 50 %"),
     Field("target_damping", "Target equivalent damping", "ratio", "", "", group="size",

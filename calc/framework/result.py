@@ -15,6 +15,7 @@ from typing import Any, Literal
 import numpy as np
 
 from fieldmode.calc.framework.kinds import KINDS
+from fieldmode.calc.framework.meaning import Meaning
 
 CAUTION = ("Screening estimates, not a design: check against local codes and licensed "
            "engineering practice.")
@@ -61,6 +62,8 @@ class Value:
     label: str
     kind: str
     magnitude: Magnitude
+    meaning: Meaning | None = None
+    """Which quantity of which object the value is (a value can be sent to fields of the same meaning)."""
 
     @property
     def is_word(self) -> bool:
@@ -80,9 +83,9 @@ class Value:
         return magnitude if math.isfinite(magnitude) else None
 
 
-def quantity(label: str, kind: str, si_value: float | np.ndarray) -> Value:
+def quantity(label: str, kind: str, si_value: float | np.ndarray, meaning: Meaning | None = None) -> Value:
     """A result value from an SI magnitude, e.g. ``quantity('Natural frequency', 'frequency', 4.1)``."""
-    return Value(label, kind, si_value if isinstance(si_value, np.ndarray) else float(si_value))
+    return Value(label, kind, si_value if isinstance(si_value, np.ndarray) else float(si_value), meaning)
 
 
 def word(label: str, text: str) -> Value:

@@ -12,10 +12,11 @@ core is loaded; reading typed text is in :mod:`fieldmode.calc.framework.reading`
 from __future__ import annotations
 
 from collections.abc import Callable, Mapping
-from dataclasses import dataclass, field
+from dataclasses import dataclass
 from typing import TYPE_CHECKING
 
 from fieldmode.calc.framework.kinds import KINDS
+from fieldmode.calc.framework.meaning import Meaning
 from fieldmode.calc.framework.result import CAUTION
 
 if TYPE_CHECKING:
@@ -34,7 +35,7 @@ class Field:
     sharing a ``group`` are alternatives: exactly one is given. ``many`` makes it a
     comma-separated list (numbers separated by blanks, '5 10 Hz', are items too).
     ``shared`` fields carry their value to other checks of a session that have a field
-    of the same name.
+    of the same meaning.
     """
 
     name: str
@@ -49,6 +50,8 @@ class Field:
     shared: bool = False
     positional: bool = False
     help: str = ""
+    meaning: Meaning | None = None
+    """Which quantity of which object the field is; values move between checks only by meaning."""
 
     @property
     def option(self) -> str:
@@ -92,8 +95,6 @@ class CheckSpec:
     fields: tuple[Field, ...]
     compute: Callable[[Inputs], Result]
     caution: str = CAUTION
-    sends: Mapping[str, str] = field(default_factory=dict)
-    """Result name -> field name it can fill in other checks (e.g. 'stiffness' -> 'stiffness')."""
     series: tuple[Series, ...] = ()
     """Every curve the check can make; a result holds some or all of them."""
 

@@ -6,5 +6,5 @@ import dataclasses
 
 from fieldmode.calc.checks import sdof
 
-TWIN = dataclasses.replace(sdof.SPEC, id="sdof-b", title="Second mass", sends={"stiffness": "stiffness"})
+TWIN = dataclasses.replace(sdof.SPEC, id="sdof-b", title="Second mass")
 """A second single-mass check: the same fields, so sharing and sending between two checks can be tested."""

@@ -11,9 +11,10 @@ import pytest
 from helpers.pilot import focus_field, go_to, note_of, screen_text, settle, type_into
 from helpers.specs import TWIN
 
-from fieldmode.calc.checks import SPECS, sdof
+from fieldmode.calc.checks import sdof
 from fieldmode.tui.present import field_text, value_text
 from fieldmode.tui.session import parse_session
+from fieldmode.tui.widgets.send_screen import SendScreen
 
 SIZE = (80, 24)
 
@@ -22,7 +23,6 @@ SIZE = (80, 24)
 
 
 
-SENDERS = [spec for spec in SPECS if spec.sends]
 
 
 def test_units_key_switches_results_between_si_and_us(make_app):
@@ -69,7 +69,12 @@ def test_stiffness_sent_to_another_check_replaces_its_alternative(make_app):
             await go_to(app, pilot, "sdof-b")
             await type_into(app, pilot, "stiffness", "12.5 kN/mm")
             await pilot.press("f8")
-            assert "Sent stiffness = 12.5 kN/mm to sdof" in app.messages[-1]
+            await pilot.pause()
+            assert isinstance(app.screen, SendScreen)
+            assert "(empties static deflection)" in screen_text(app)
+            await pilot.press("enter")
+            await pilot.pause()
+            assert "Stiffness = 12.5 kN/mm to sdof" in app.messages[-1]
             await pilot.press("f2")
             view = await settle(app, pilot)
             assert view.row("stiffness").input.value == "12.5 kN/mm"
@@ -78,33 +83,58 @@ def test_stiffness_sent_to_another_check_replaces_its_alternative(make_app):
             # Source: Chopra, Dynamics of Structures, eq. 2.1.4: f_n = (1 / 2 pi) sqrt(k / m)
             expected = math.sqrt(12.5e6 / 9600) / (2 * math.pi)
             assert view.outcome.result.values["natural_frequency"].magnitude == pytest.approx(expected)
-            await pilot.press("f8")
-            assert "sdof has no results to send" in app.messages[-1]
 
     asyncio.run(scenario())
 
 
-@pytest.mark.parametrize("spec", SENDERS, ids=[spec.id for spec in SENDERS])
-def test_every_check_that_sends_fills_every_check_with_the_field(make_app, spec):
+def test_after_a_decay_f8_sends_only_what_means_the_same(make_app):
     async def scenario():
         app = make_app()
         async with app.run_test(size=SIZE) as pilot:
-            view = await go_to(app, pilot, spec.id)
+            view = await go_to(app, pilot, "decay")
             result = view.outcome.result
+            before = {check: dict(texts) for check, texts in app.workspace.texts.items()}
             await pilot.press("f8")
             await pilot.pause()
-            for value_name, field_name in spec.sends.items():
-                value = result.values[value_name]
-                text = field_text(value.magnitude, value.kind, "si")
-                targets = [other for other in SPECS
-                           if other.id != spec.id and any(f.name == field_name for f in other.fields)]
-                for other in targets:
-                    assert app.workspace.texts[other.id][field_name] == text
-                    target = await go_to(app, pilot, other.id)
-                    assert target.row(field_name).input.value == text
-                    assert field_name not in target.outcome.errors
-                    sent = target.outcome.result.inputs[field_name].value
-                    assert sent == pytest.approx(value.si(), rel=1e-5)
+            dialog = app.screen
+            assert isinstance(dialog, SendScreen)
+            shown = screen_text(app)
+            assert "damping ratio of the building" in shown  # said, not sent
+            damping = next(i for i, t in enumerate(dialog.targets) if t.label == "Damping ratio")
+            for _ in range(damping):
+                await pilot.press("down")
+            await pilot.press("space")  # untick the structure's damping into sdof and forced
+            assert "[ ] sdof, forced: Damping ratio" in screen_text(app)
+            await pilot.press("enter")
+            await pilot.pause()
+            texts = app.workspace.texts
+            frequency = field_text(result.number("natural_frequency"), "frequency", "si")
+            assert texts["tmd"]["frequency"] == texts["footfall"]["frequency"] == frequency
+            assert texts["tmd"]["damping"] == field_text(result.number("damping_ratio"), "ratio", "si")
+            assert texts["sdof"]["damping"] == before["sdof"]["damping"]  # unticked: unchanged
+            for check, name in (("forced", "frequency"), ("isolate", "frequency"), ("isolate", "damping"),
+                                ("design-spectrum", "damping"), ("spectrum", "damping"), ("storeys", "damping")):
+                assert texts[check][name] == before[check][name], (check, name)
+            target = await go_to(app, pilot, "tmd")
+            assert target.outcome.result.inputs["frequency"].value == pytest.approx(
+                result.number("natural_frequency"), rel=1e-5)
+
+    asyncio.run(scenario())
+
+
+def test_from_member_f8_does_not_offer_the_mounts(make_app):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await go_to(app, pilot, "member")
+            await pilot.press("f8")
+            await pilot.pause()
+            assert isinstance(app.screen, SendScreen)
+            reached = {check for target in app.screen.targets for check in target.checks}
+            assert "isolate" not in reached and {"sdof", "forced"} <= reached
+            await pilot.press("escape")
+            await pilot.pause()
+            assert app.messages[-1] == "Nothing sent."
 
     asyncio.run(scenario())
 
@@ -115,13 +145,13 @@ def test_shared_mass_follows_until_a_check_has_its_own(make_app):
         async with app.run_test(size=SIZE) as pilot:
             await settle(app, pilot)
             await type_into(app, pilot, "mass", "11 t")
-            assert "shared with 1" in note_of(app.current_view, "mass")
+            assert "same as in sdof-b" in note_of(app.current_view, "mass")
             view = await go_to(app, pilot, "sdof-b")
             assert view.row("mass").input.value == "11 t"
             await focus_field(app, pilot, "mass")
             await pilot.press("ctrl+o")
             await type_into(app, pilot, "mass", "4 t")
-            assert "own value" in note_of(app.current_view, "mass")
+            assert "its own value here" in note_of(app.current_view, "mass")
             await pilot.press("f2")
             await type_into(app, pilot, "mass", "12 t")
             view = await go_to(app, pilot, "sdof-b")

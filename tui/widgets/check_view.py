@@ -180,13 +180,14 @@ class CheckView(Vertical):
             others = [f.label for f in self.spec.fields
                       if f.group and f.group == spec_field.group and f is not spec_field]
             note = ("or " + " / ".join(others)) if others else ("optional" if not spec_field.required else "")
-        if spec_field.shared and note and any(self.workspace.shared_partners(self.spec.id, name)):
-            if name in self.workspace.own[self.spec.id]:
-                note += " (own value; ^O shares)"
-            else:
-                linked = self.workspace.linked_count(self.spec.id, name)
-                note += f" (shared with {linked}; ^O own)" if linked else " (^O own)"
-        return note
+        partners = self.workspace.partners(self.spec.id, name)
+        if partners and name in self.workspace.own[self.spec.id]:
+            note += f"; its own value here (Ctrl+O: the same as in {', '.join(partners)})"
+        elif partners:
+            following = [check for check, _ in self.workspace.sharing(self.spec.id, name)]
+            same = f"same as in {', '.join(following)}" if following else "shared"
+            note += f"; {same} (Ctrl+O: a value of its own here)"
+        return note.lstrip("; ")
 
     def scroll_results(self, pages: int) -> None:
         """Scroll the results (or the fields, in chart view) by whole pages."""
