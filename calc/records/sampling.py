@@ -86,7 +86,8 @@ def uniform(data: bytes, layout: Layout, time: np.ndarray, signals: np.ndarray,
         worst = int(np.argmax(np.abs(np.log(ratio)))) + 1
         raise RecordError(layout.shown, f"sampling too uneven: a step of {steps[worst - 1]:.4g} s is "
                           f"{ratio[worst - 1]:.2g} x the median step {median:.4g} s (resampling allowed "
-                          f"for {RESAMPLE_LIMITS[0]:g}-{RESAMPLE_LIMITS[1]:g} x)", table.line_of_row(data, layout, worst))
+                          f"for {RESAMPLE_LIMITS[0]:g}-{RESAMPLE_LIMITS[1]:g} x)",
+                          table.line_of_row(data, layout, worst))
     count = int(np.floor((time[-1] - time[0]) / median + 1e-9)) + 1
     even = time[0] + np.arange(count) * median
     notes.append(f"sampling uneven (steps {low:.2f}-{high:.2f} x the median): "
