@@ -94,7 +94,8 @@ _kept: OrderedDict[tuple[object, ...], Record] = OrderedDict()
 
 
 def read_record(path: str | os.PathLike[str], time_column: int | str | None = None,
-                signal_column: int | str | None = None, sample_rate: float | None = None, signal_unit: str | None = None) -> Record:
+                signal_column: int | str | None = None, sample_rate: float | None = None,
+                signal_unit: str | None = None) -> Record:
     """Read a record with one signal column (default: the first column that is not the time)."""
     return read_channels(path, time_column, None if signal_column is None else [signal_column], sample_rate,
                          signal_unit, single=True)
