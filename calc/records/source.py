@@ -112,7 +112,7 @@ def read_source(typed: str, max_bytes: int) -> Source:
 
 def _read_limited(handle: int, typed: str, max_bytes: int) -> bytes:
     """Everything readable from ``handle``, refusing more than ``max_bytes``."""
-    chunks = []
+    chunks: list[bytes] = []
     total = 0
     while True:
         try:
