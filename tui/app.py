@@ -11,10 +11,12 @@ import asyncio
 import gc
 import os
 import signal
+import time
 from collections.abc import Callable, Sequence
 from pathlib import Path
 from typing import TYPE_CHECKING
 
+from rich.text import Text
 from textual import work
 from textual.app import App, ComposeResult
 from textual.binding import Binding
@@ -80,6 +82,9 @@ class FieldmodeApp(App[int]):
         self._first_results_shown = False
         self.specs = tuple(specs if specs is not None else SPECS)
         self.store = SessionStore(state_folder if state_folder is not None else state_dir())
+        self._holder = self.store.owner.claim()
+        """Process id of another app that saves this session (this one is read-only until asked), or None."""
+        self.store.read_only = self._holder is not None
         loaded = self.store.load()
         self.startup_messages = loaded.messages + self.store.probe()
         self.workspace = Workspace(self.specs, loaded.data)
@@ -91,6 +96,8 @@ class FieldmodeApp(App[int]):
         self.set_class(self.ascii_borders, "-ascii")  # before mounting: no second styling pass
         self._save_sequence = 0
         self._save_problem = ""
+        self._unsaved = False
+        """True when something changed since the session was last written."""
 
     def compose(self) -> ComposeResult:
         yield TopBar("", id="top")
@@ -114,6 +121,26 @@ class FieldmodeApp(App[int]):
         for signum in (signal.SIGHUP, signal.SIGTERM):
             loop.add_signal_handler(signum, self._on_signal)
         self.call_after_refresh(self._first_frame)
+        if self._holder is not None:
+            from fieldmode.tui.widgets.owner_screen import OwnerScreen
+
+            self.push_screen(OwnerScreen(self._holder, str(self.store.folder)), self._owner_chosen)
+
+    def _owner_chosen(self, choice: str | None) -> None:
+        """Another app saves this session: read-only, take over, or quit (widgets/owner_screen.py)."""
+        from fieldmode.tui.widgets.owner_screen import READ_ONLY, TAKE_OVER
+
+        if choice == TAKE_OVER:
+            self.store.owner.take()
+            self.store.read_only = False
+            self.say(f"This window saves the session now; process {self._holder} stops saving it.")
+            self.save_soon()
+        elif choice == READ_ONLY:
+            self.say("Read-only: nothing typed here is saved. F9 writes a calc record.", warning=True, timeout=15)
+        else:
+            self.exit(0)
+            return
+        self._show_state()
 
     def _first_frame(self) -> None:
         """The fields are on screen: now load the core and compute, in the pane's worker."""
@@ -125,6 +152,24 @@ class FieldmodeApp(App[int]):
         loop = asyncio.get_running_loop()
         for signum in (signal.SIGHUP, signal.SIGTERM):
             loop.remove_signal_handler(signum)
+        self.store.owner.release()
+
+    def _handle_exception(self, error: Exception) -> None:
+        """A fault in the app (a bug): save the session, keep the details in a file, leave with status 1
+        and one line that says so with the version (Textual would print a long traceback)."""
+        import traceback
+
+        from fieldmode.calc import __version__
+
+        self.store.save(self.workspace.snapshot())
+        report = self.store.folder / f"fault-{time.strftime('%Y%m%d-%H%M%S')}.txt"
+        try:
+            report.write_text("".join(traceback.format_exception(error)), encoding="utf-8")
+            where = f"; details in {report}"
+        except OSError:
+            where = ""
+        self.exit(1, return_code=1, message=Text(f"fieldmode {__version__}: internal fault ({type(error).__name__}: "
+                                                 f"{error}); your inputs were saved{where}; please report it"))
 
     def _on_signal(self) -> None:
         """The link dropped or the process is asked to stop: save now, then leave cleanly."""
@@ -148,8 +193,9 @@ class FieldmodeApp(App[int]):
         view = self.current_view
         index = next(i for i, spec in enumerate(self.specs) if spec.id == view.spec.id)
         shown = "results" if not view.view else f"chart {view.view}"
+        saved = "READ-ONLY" if self.store.read_only else "NOT SAVED" if self._save_problem else ""
         self.query_one(TopBar).show_state(index, len(self.specs), view.spec.id, view.spec.title,
-                                          self.workspace.system, shown, bool(self._save_problem))
+                                          self.workspace.system, shown, saved)
         self.query_one(CautionLine).show_caution(view.spec.caution)
 
     # Changes and saving
@@ -173,6 +219,7 @@ class FieldmodeApp(App[int]):
 
     def save_soon(self) -> None:
         """Save the session in the background (after every change)."""
+        self._unsaved = True
         self._save_sequence += 1
         self._save(self.workspace.snapshot(), self._save_sequence)
 
@@ -182,6 +229,8 @@ class FieldmodeApp(App[int]):
         self.call_from_thread(self._saved, problem)
 
     def _saved(self, problem: str) -> None:
+        if not problem and self._save_sequence == self.store.written:
+            self._unsaved = False
         if problem and problem != self._save_problem:
             self.say(problem + ". Export a calc record (F9) to keep your inputs.", warning=True, timeout=15)
         changed = bool(problem) != bool(self._save_problem)
@@ -249,8 +298,31 @@ class FieldmodeApp(App[int]):
             self.push_screen(HelpScreen(key_rows([b for b in self.BINDINGS if isinstance(b, Binding)])))
 
     def action_quit_saved(self) -> None:
-        self.store.save(self.workspace.snapshot())
-        self.exit(0)
+        """Save and quit; when the session cannot be saved and something changed, ask first."""
+        from fieldmode.tui.widgets.quit_screen import QuitScreen
+
+        if isinstance(self.screen, QuitScreen):  # F10 again in the question: quit without saving
+            self.exit(0)
+            return
+        snapshot = self.workspace.snapshot()
+        problem = self.store.save(snapshot)
+        if not problem or not self._unsaved:
+            self.exit(0)
+            return
+        suggested = f"~/fieldmode-session-{time.strftime('%Y-%m-%d-%H%M')}.json"
+        self.push_screen(QuitScreen(problem, suggested, lambda path: self._save_elsewhere(path, snapshot.to_json())),
+                         lambda quit_now: self.exit(0) if quit_now else None)
+
+    def _save_elsewhere(self, path: Path, text: str) -> str:
+        """Write the session to ``path`` (it can be copied to the state folder later); '' or the problem."""
+        from fieldmode.tui.files import describe_os_error, write_atomic
+
+        try:
+            write_atomic(path, text)
+        except OSError as error:
+            return describe_os_error(error, path)
+        self.say(f"Session written to {path}")
+        return ""
 
     # Lookups, sending, records
 

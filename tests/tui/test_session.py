@@ -24,7 +24,7 @@ def test_save_then_load_round_trip(tmp_path):
     loaded = store.load()
     assert loaded.messages == [] and loaded.data == data
     raw = json.loads(store.path.read_text())
-    assert raw["format"] == "fieldmode-session" and raw["version"] == 1
+    assert raw["format"] == "fieldmode-session" and raw["version"] == 2
     assert [p.name for p in store.folder.iterdir()] == ["session.json"]  # no temporary file left
 
 
@@ -69,3 +69,19 @@ def test_unwritable_folder_is_reported_not_raised(tmp_path):
     assert "will not be saved" in store.probe()[0]
     problem = store.save(SessionData({}))
     assert problem.startswith("Session not saved: cannot write") and "Not a directory" in problem
+
+
+@pytest.mark.parametrize("content", [
+    "[" * 100_000 + "]" * 100_000,
+    '{"format": "fieldmode-session", "checks": {"sdof": {"mass": "' + "9" * 100_000 + '"}}}',
+    '{"format": "fieldmode-session", "checks": {}, "shared": {"structure: mass": ["9.6 t"]}}',
+    '{"format": "fieldmode-session", "checks": {}, "project": {"project": {"deep": "x"}}}',
+])
+def test_a_session_of_any_damaged_shape_is_moved_aside(tmp_path, content):
+    # Common practice (no source): a damaged settings file must never stop the program from opening
+    store = SessionStore(tmp_path)
+    (tmp_path / "session.json").write_text(content)
+    loaded = store.load()
+    assert loaded.data is None and "moved to" in loaded.messages[0]
+    assert not (tmp_path / "session.json").exists()
+    assert any(path.name.startswith("session.json.unreadable-") for path in tmp_path.iterdir())
