@@ -10,9 +10,10 @@ from __future__ import annotations
 import asyncio
 import gc
 import os
+import re
 import signal
 import time
-from collections.abc import Callable, Sequence
+from collections.abc import Callable, Mapping, Sequence
 from pathlib import Path
 from typing import TYPE_CHECKING
 
@@ -23,6 +24,7 @@ from textual.binding import Binding
 from textual.widgets import ContentSwitcher
 
 from fieldmode.calc.checks import SPECS
+from fieldmode.tui.printable import printable
 from fieldmode.tui.session import SessionStore, state_dir
 from fieldmode.tui.widgets.check_view import CheckView
 from fieldmode.tui.widgets.status import CautionLine, KeyBar, TopBar
@@ -91,20 +93,26 @@ class FieldmodeApp(App[int]):
         self.views: dict[str, CheckView] = {}
         self.messages: list[str] = []
         """Every notice shown to the person, in order (tests read it)."""
-        self.ascii_borders = (os.environ.get("TERM") == "linux" or os.environ.get("FIELDMODE_ASCII") == "1"
-                              if ascii_borders is None else ascii_borders)
+        self.ascii_borders = ascii_terminal(os.environ) if ascii_borders is None else ascii_borders
+        """Draw borders and charts with ASCII characters (consoles that show box or braille characters badly)."""
         self.set_class(self.ascii_borders, "-ascii")  # before mounting: no second styling pass
         self._save_sequence = 0
         self._save_problem = ""
         self._unsaved = False
         """True when something changed since the session was last written."""
+        self._top = TopBar("", id="top")
+        self._caution = CautionLine("", id="caution")
+        self._keys = KeyBar("", id="keys")
+        """The lines around the check (kept: never looked up, so never missed while mounting)."""
+        self._switcher: ContentSwitcher | None = None
 
     def compose(self) -> ComposeResult:
-        yield TopBar("", id="top")
+        yield self._top
         current = self._new_view(self.workspace.current, compute_on_mount=False)
-        yield ContentSwitcher(current, initial=current.id, id="checks")
-        yield CautionLine("", id="caution")
-        yield KeyBar("", id="keys")
+        self._switcher = ContentSwitcher(current, initial=current.id, id="checks")
+        yield self._switcher
+        yield self._caution
+        yield self._keys
 
     def _new_view(self, check_id: str, compute_on_mount: bool = True) -> CheckView:
         view = CheckView(self.workspace.by_id[check_id], self.workspace, compute_on_mount)
@@ -112,7 +120,7 @@ class FieldmodeApp(App[int]):
         return view
 
     def on_mount(self) -> None:
-        self.query_one(KeyBar).show_keys([b for b in self.BINDINGS if isinstance(b, Binding)])
+        self._keys.show_keys([b for b in self.BINDINGS if isinstance(b, Binding)])
         self.current_view.focus_first()
         self._show_state()
         for message in self.startup_messages:
@@ -182,6 +190,7 @@ class FieldmodeApp(App[int]):
 
     def say(self, text: str, warning: bool = False, timeout: float = 6) -> None:
         """Tell the person something (a notice in the corner) and keep it in :attr:`messages`."""
+        text = printable(text, keep_newlines=True)
         self.messages.append(text)
         self.notify(text, title="warning" if warning else "done", severity="warning" if warning else "information",
                     timeout=timeout, markup=False)
@@ -194,9 +203,9 @@ class FieldmodeApp(App[int]):
         index = next(i for i, spec in enumerate(self.specs) if spec.id == view.spec.id)
         shown = "results" if not view.view else f"chart {view.view}"
         saved = "READ-ONLY" if self.store.read_only else "NOT SAVED" if self._save_problem else ""
-        self.query_one(TopBar).show_state(index, len(self.specs), view.spec.id, view.spec.title,
+        self._top.show_state(index, len(self.specs), view.spec.id, view.spec.title,
                                           self.workspace.system, shown, saved)
-        self.query_one(CautionLine).show_caution(view.spec.caution)
+        self._caution.show_caution(view.spec.caution)
 
     # Changes and saving
 
@@ -242,7 +251,8 @@ class FieldmodeApp(App[int]):
 
     async def show_check(self, check_id: str) -> None:
         """Put a check on screen (building its pane the first time) and focus its first field."""
-        switcher = self.query_one(ContentSwitcher)
+        switcher = self._switcher
+        assert switcher is not None  # made in compose, before any check can be shown
         view = self.views.get(check_id)
         if view is None:
             view = self._new_view(check_id)
@@ -427,6 +437,19 @@ class FieldmodeApp(App[int]):
         except OSError as error:
             return describe_os_error(error, path) + "; nothing was lost, try another path"
         return ""
+
+
+ASCII_TERMINALS = ("linux", "dumb", "vt100", "vt102", "vt220", "ansi")
+"""Values of TERM whose consoles draw box and braille characters badly."""
+
+
+def ascii_terminal(environ: Mapping[str, str]) -> bool:
+    """True when the terminal should get ASCII drawing: asked for (FIELDMODE_ASCII=1), a console in
+    :data:`ASCII_TERMINALS`, or a locale that is not UTF-8 (LANG=C, for one)."""
+    if environ.get("FIELDMODE_ASCII") == "1" or environ.get("TERM", "") in ASCII_TERMINALS:
+        return True
+    locale = environ.get("LC_ALL") or environ.get("LC_CTYPE") or environ.get("LANG") or ""
+    return re.search(r"utf-?8", locale, re.IGNORECASE) is None
 
 
 def run_app(state_folder: Path | None = None, **options: object) -> int:

@@ -26,6 +26,13 @@ class Kind:
     names: dict[str, str] = field(default_factory=dict)
 
 
+MAX_QUANTITY_TEXT = 60
+"""Longest text accepted in a field of one quantity (characters)."""
+MAX_LIST_TEXT = 2000
+"""Longest text accepted in a list field or a free-text field (characters)."""
+MAX_PATH_TEXT = 4096
+"""Longest file path accepted (characters)."""
+
 FORCE = "[mass]*[length]/[time]**2"
 PRESSURE = "[mass]/[length]/[time]**2"
 

@@ -14,6 +14,7 @@ from helpers.pilot import focus_field, go_to, keys_for, note_of, screen_text, se
 from helpers.specs import TWIN
 
 from fieldmode.calc.checks import sdof
+from fieldmode.tui.app import ascii_terminal
 from fieldmode.tui.present import field_text, value_text
 from fieldmode.tui.session import parse_session
 from fieldmode.tui.session_lock import SessionLock
@@ -356,3 +357,28 @@ def test_a_fault_in_the_app_saves_the_session_and_exits_with_status_1(make_app, 
     assert saved.shared["structure: mass"] == "13 t"
     reports = list(state.glob("fault-*.txt"))
     assert reports and "RuntimeError: a bug" in reports[0].read_text()
+
+
+@pytest.mark.parametrize(("environ", "ascii_drawn"), [
+    ({"TERM": "xterm-256color", "LANG": "en_GB.UTF-8"}, False),
+    ({"TERM": "xterm-256color", "LANG": "C.utf8"}, False),
+    ({"TERM": "linux", "LANG": "en_GB.UTF-8"}, True),
+    ({"TERM": "dumb", "LANG": "en_GB.UTF-8"}, True),
+    ({"TERM": "xterm", "LANG": "C"}, True),
+    ({"TERM": "xterm", "LC_ALL": "POSIX", "LANG": "en_GB.UTF-8"}, True),
+    ({"TERM": "xterm", "LANG": "en_GB.UTF-8", "FIELDMODE_ASCII": "1"}, True),
+])
+def test_ascii_drawing_where_the_terminal_needs_it(environ, ascii_drawn):
+    # Common practice (no source): consoles without UTF-8 or box characters get plain ASCII
+    assert ascii_terminal(environ) is ascii_drawn
+
+
+def test_a_narrow_terminal_keeps_room_for_the_results(make_app):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=(40, 12)) as pilot:
+            view = await settle(app, pilot)
+            assert view.query_one(".results-box").size.width >= 15
+            assert "10.53 Hz" in screen_text(app)
+
+    asyncio.run(scenario())
