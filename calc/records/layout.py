@@ -167,6 +167,14 @@ def _last_content(lines: list[str]) -> int:
 def _names(line: str, delimiter: str | None, width: int) -> tuple[str, ...]:
     """Column names from the last header line if it has one per column, else '1', '2', ..."""
     cells = cells_of(line, delimiter) if line else []
+    if delimiter is None and len(cells) > width:  # blanks separate: 'Time (ms) acc [g]' is two names
+        merged: list[str] = []
+        for cell in cells:
+            if merged and cell[:1] in "([":
+                merged[-1] += " " + cell
+            else:
+                merged.append(cell)
+        cells = merged
     if len(cells) == width and all(cells):
         return tuple(cells)
     return tuple(str(i + 1) for i in range(width))

@@ -8,10 +8,12 @@ import os
 import signal
 import subprocess
 import sys
+import time
 
 import pytest
 from helpers.pilot import focus_field, go_to, keys_for, note_of, screen_text, settle, type_into
 from helpers.specs import TWIN
+from textual import events
 
 from fieldmode.calc.checks import sdof
 from fieldmode.tui.app import ascii_terminal
@@ -380,5 +382,38 @@ def test_a_narrow_terminal_keeps_room_for_the_results(make_app):
             view = await settle(app, pilot)
             assert view.query_one(".results-box").size.width >= 15
             assert "10.53 Hz" in screen_text(app)
+
+    asyncio.run(scenario())
+
+
+def test_a_burst_of_every_key_with_a_slow_computation_leaves_the_app_running(make_app, monkeypatch):
+    from fieldmode.tui import evaluation
+
+    original = evaluation.evaluate_guarded
+
+    def slow(*args, **kwargs):  # a busy machine: every computation takes a while
+        time.sleep(0.15)
+        return original(*args, **kwargs)
+
+    monkeypatch.setattr(evaluation, "evaluate_guarded", slow)
+    keys = ["f6", "f6", "f1", "escape", "f6", "f3", "f6", "f1", "f4", "escape", "f7", "escape", "f8", "escape",
+            "f9", "escape", "f2", "f6", "pagedown", "pageup", "f5", "f6", "f1", "f1", "f3", "f3", "f6", "escape"]
+
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await pilot.pause()
+            for key in keys:  # all at once, as keys arrive together over a slow link
+                app.post_message(events.Key(key, None))
+            for _ in range(100):
+                await pilot.pause(0.05)
+            await app.workers.wait_for_complete()
+            await pilot.pause()
+            assert app.is_running and app.return_code is None
+            while len(app.screen_stack) > 1:
+                await pilot.press("escape")
+            view = await settle(app, pilot)
+            assert view.outcome is not None
+        assert app.return_code in (0, None)
 
     asyncio.run(scenario())
