@@ -85,3 +85,39 @@ def test_a_session_of_any_damaged_shape_is_moved_aside(tmp_path, content):
     assert loaded.data is None and "moved to" in loaded.messages[0]
     assert not (tmp_path / "session.json").exists()
     assert any(path.name.startswith("session.json.unreadable-") for path in tmp_path.iterdir())
+
+
+def test_a_record_of_two_files_is_written_whole_or_not_at_all(tmp_path, monkeypatch):
+    from fieldmode.tui.files import write_all_atomic
+
+    md, js = tmp_path / "r.md", tmp_path / "r.json"
+    md.write_text("old md")
+    js.write_text("old json")
+    real_replace = os.replace
+
+    def failing(source, target):
+        if str(target).endswith(".json"):
+            raise OSError(28, "No space left on device")
+        return real_replace(source, target)
+
+    monkeypatch.setattr(os, "replace", failing)
+    with pytest.raises(OSError) as caught:
+        write_all_atomic({md: "new md", js: "new json"})
+    monkeypatch.setattr(os, "replace", real_replace)
+    # Common practice (no source): a record of several files is all new or all old, never half of each
+    assert md.read_text() == "old md" and js.read_text() == "old json"
+    assert caught.value.filename == str(js)
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["r.json", "r.md"]
+
+
+def test_a_replaced_file_keeps_its_permissions_and_a_new_one_follows_the_umask(tmp_path):
+    from fieldmode.tui.files import UMASK
+
+    kept = tmp_path / "kept.md"
+    kept.write_text("old")
+    kept.chmod(0o640)
+    write_atomic(kept, "new")
+    assert (kept.stat().st_mode & 0o777) == 0o640 and kept.read_text() == "new"
+    fresh = tmp_path / "fresh.md"
+    write_atomic(fresh, "new")
+    assert (fresh.stat().st_mode & 0o777) == 0o666 & ~UMASK
