@@ -116,6 +116,6 @@ def write_record(path: Path, entries: Sequence[Entry], system: str) -> tuple[Pat
     could not be written."""
     when = time.localtime()
     md_path, json_path = record_paths(path)
-    write_all_atomic({md_path: markdown(entries, system, when),
-                      json_path: json.dumps(as_json(entries, when), indent=1, allow_nan=False, ensure_ascii=False) + "\n"})
+    record = json.dumps(as_json(entries, when), indent=1, allow_nan=False, ensure_ascii=False) + "\n"
+    write_all_atomic({md_path: markdown(entries, system, when), json_path: record})
     return md_path, json_path
