@@ -3,6 +3,7 @@ damping it needs."""
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass
 from typing import TYPE_CHECKING
 
@@ -216,6 +217,7 @@ def _damping_needed(bridge: Bridge, direction: str, aims: list[tuple[str, float 
                     flags: list[Flag]) -> dict[str, Value]:
     """The damping that meets every aim of a direction, and the damper mass ratio that gives it."""
     from fieldmode.calc.physics import footbridge as fb
+    from fieldmode.calc.physics import tmd
 
     if not aims:
         return {}
@@ -236,6 +238,9 @@ def _damping_needed(bridge: Bridge, direction: str, aims: list[tuple[str, float 
             flags.append(Flag("caution", f"{direction} damper: {error}"))
         else:
             values[f"{prefix}damper_mass_ratio"] = quantity(f"Damper mass ratio, {direction}", "ratio", ratio)
+            if math.isclose(ratio, tmd.MIN_MASS_RATIO):
+                flags.append(Flag("info", f"{direction}: the smallest damper considered ({ratio:.1%} of the modal "
+                                          "mass) already gives the damping needed"))
     return values
 
 
