@@ -28,7 +28,7 @@ DAMPING_NEEDED = Meaning("damping ratio needed", STRUCTURE)
 FLOOR_CAUTION = ("Screening predictions, not a design: the floor's real modal properties (measure them with the "
                  "`decay` check), the project's vibration criteria, local codes and a licensed engineer govern.")
 
-PACE_POINTS = 61
+PACE_POINTS = 41
 """Points of the response against pacing rate."""
 FREQUENCY_POINTS = 120
 """Points of the response against floor frequency (about twice the plot width)."""
