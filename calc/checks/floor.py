@@ -197,7 +197,7 @@ def _response(inputs: Inputs, floor: Floor, resonant: bool, limit: float, flags:
     if resonant:
         walking = fw.resonant_response(floor.frequency, floor.damping, floor.modal_mass, **_resonant_options(floor))
         values["method"] = word("Method", f"resonant walking, harmonic {walking.harmonic}")
-        values["pacing_rate"] = quantity("Pacing rate that drives it", "frequency", walking.pacing_rate)
+        values["pacing_rate"] = quantity("Driving pacing rate", "frequency", walking.pacing_rate)
         if floor.path_length is not None:
             values["buildup"] = quantity("Build-up along the path", "ratio", walking.buildup)
         peak, rms, factor = walking.peak, walking.rms, walking.response_factor
@@ -209,7 +209,7 @@ def _response(inputs: Inputs, floor: Floor, resonant: bool, limit: float, flags:
     else:
         footfall = fi.transient_response(floor.frequency, floor.damping, floor.modal_mass, **_transient_options(floor))
         values["method"] = word("Method", "transient footfall impulse")
-        values["pacing_rate"] = quantity("Pacing rate of the footfalls", "frequency", floor.band[1])
+        values["pacing_rate"] = quantity("Footfall pacing rate", "frequency", floor.band[1])
         values["peak_velocity"] = quantity("Peak velocity", "velocity", footfall.peak_velocity)
         values["rms_velocity"] = quantity(f"R.m.s. velocity over {fi.WINDOW:g} s", "velocity", footfall.rms_velocity)
         peak, rms, factor = omega * footfall.peak_velocity, omega * footfall.rms_velocity, footfall.response_factor
@@ -223,13 +223,11 @@ def _response(inputs: Inputs, floor: Floor, resonant: bool, limit: float, flags:
     met = factor <= limit
     use = OCCUPANCIES[floor.occupancy]
     values.update({
-        "peak_acceleration": quantity("Peak acceleration" + ("" if resonant else " (2 pi fn v)"), "acceleration",
-                                      peak),
-        "rms_acceleration": quantity("R.m.s. acceleration" + ("" if resonant else " (2 pi fn v)"), "acceleration",
-                                     rms),
+        "peak_acceleration": quantity("Peak acceleration", "acceleration", peak),
+        "rms_acceleration": quantity("R.m.s. acceleration", "acceleration", rms),
         "response_factor": quantity("Response factor", "number", factor),
-        "response_limit": quantity(f"Response factor limit, {floor.occupancy}", "number", limit),
-        "response_met": word("Response factor limit", "met" if met else "NOT MET"),
+        "response_limit": quantity("Response factor limit", "number", limit),
+        "response_met": word("Response factor verdict", "met" if met else "NOT MET"),
     })
     if not met:
         flags.append(Flag("warning", f"response factor {factor:.3g} exceeds the {floor.occupancy} limit {limit:g}"))
@@ -291,7 +289,7 @@ def _dg11(inputs: Inputs, floor: Floor, flags: list[Flag],
     if floor.options["weight"] != fw.PERSON_WEIGHT:
         flags.append(Flag("info", "the Design Guide 11 criterion keeps its own constant force P0 = 0.29 kN: the "
                                   "walker's weight is used by the other method"))
-    values = {"dg11_acceleration": quantity("Peak acceleration, DG11", "acceleration", acceleration)}
+    values = {"dg11_acceleration": quantity("DG11 peak acceleration", "acceleration", acceleration)}
     key = OCCUPANCIES[floor.occupancy].dg11
     if key is None:
         flags.append(Flag("info", f"Design Guide 11 gives no walking limit for {floor.occupancy}: judged by the "
@@ -299,8 +297,8 @@ def _dg11(inputs: Inputs, floor: Floor, flags: list[Flag],
         return values, None
     limit = fw.dg11_limit(key)
     met = acceleration <= limit
-    values["dg11_limit"] = quantity(f"DG11 limit, {floor.occupancy}", "acceleration", limit)
-    values["dg11_met"] = word("DG11 limit", "met" if met else "NOT MET")
+    values["dg11_limit"] = quantity("DG11 limit", "acceleration", limit)
+    values["dg11_met"] = word("DG11 verdict", "met" if met else "NOT MET")
     if met:
         return values, None
     flags.append(Flag("warning", f"DG11 peak acceleration {acceleration / STANDARD_GRAVITY:.2%} g exceeds the "
@@ -335,7 +333,7 @@ def _needs(needs: list[dict[str, float | None]], floor: Floor, flags: list[Flag]
         flags.append(Flag("info", f"F8 sends the mode and the damping ratio needed ({damping:.2%}) to `tmd`, which "
                                   "sizes a damper giving it as equivalent damping"))
     for key, label, kind in (("modal_mass", "Modal mass needed", "mass"),
-                             ("effective_weight", "Effective weight needed (DG11)", "force")):
+                             ("effective_weight", "DG11 weight needed", "force")):
         found = [need[key] for need in needs if need.get(key) is not None]
         if found:
             values[f"{key}_needed"] = quantity(label, kind, max(v for v in found if v is not None))
@@ -344,7 +342,7 @@ def _needs(needs: list[dict[str, float | None]], floor: Floor, flags: list[Flag]
         flags.append(Flag("caution", "no floor frequency up to 80 Hz meets the limits with this mass and damping"))
     else:
         lowest = max(f for f in frequencies if f is not None)
-        values["frequency_needed"] = quantity("Frequency from which limits are met", "frequency", lowest)
+        values["frequency_needed"] = quantity("Lowest frequency needed", "frequency", lowest)
     return values
 
 

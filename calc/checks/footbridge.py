@@ -172,11 +172,11 @@ def _direction(bridge: Bridge, direction: str, frequency: float, needs: list[tup
     met = fb.meets_en1990(stream.acceleration, direction, bridge.exceptional)
     name = direction.capitalize()
     values = {
-        f"{direction}_single": quantity(f"{name}, one pedestrian at resonance", "acceleration", single),
+        f"{direction}_single": quantity(f"{name}, one walker", "acceleration", single),
         f"{direction}_stream": quantity(f"{name}, stream", "acceleration", stream.acceleration),
-        f"{direction}_reduction": quantity(f"{name} reduction psi ({bridge.guide})", "number", stream.reduction),
-        f"{direction}_limit": quantity(f"{name} limit, EN 1990 A2", "acceleration", limit),
-        f"{direction}_met": word(f"{name} limit", "met" if met else "NOT MET"),
+        f"{direction}_reduction": quantity(f"{name} psi ({bridge.guide})", "number", stream.reduction),
+        f"{direction}_limit": quantity(f"{name} EN 1990 limit", "acceleration", limit),
+        f"{direction}_met": word(f"{name} EN 1990 verdict", "met" if met else "NOT MET"),
         f"{direction}_comfort": word(f"{name} comfort class",
                                      fb.comfort_class(stream.acceleration, direction, bridge.guide)),
     }
@@ -209,7 +209,7 @@ def _lock_in(bridge: Bridge, lateral: float, count: float, needs: list[tuple[str
         flags.append(Flag("warning", f"{count:.3g} pedestrians exceed the {found.critical:.3g} that can start lateral "
                                      "lock-in"))
         needs.append(("no lock-in", fb.damping_for_lock_in(count, lateral, bridge.modal_mass)))
-    return {"critical_pedestrians": quantity("Critical pedestrians, lateral lock-in", "number", found.critical),
+    return {"critical_pedestrians": quantity("Lock-in critical number", "number", found.critical),
             "lock_in": word("Lateral lock-in", "EXCEEDED" if found.exceeded else "not reached")}
 
 
@@ -229,15 +229,17 @@ def _damping_needed(bridge: Bridge, direction: str, aims: list[tuple[str, float 
     damping = max(d for _, d in aims if d is not None)
     aim = " and ".join(aim for aim, _ in aims)
     prefix = "" if direction == "vertical" else "lateral_"
-    values = {f"{prefix}damping_needed": quantity(f"Damping ratio needed, {direction}: {aim}", "ratio", damping,
+    short = "vert" if direction == "vertical" else "lat"
+    values = {f"{prefix}damping_needed": quantity(f"Damping needed ({short})", "ratio", damping,
                                                   meaning=DAMPING_NEEDED if direction == "vertical" else None)}
+    flags.append(Flag("info", f"{direction} damping needed for {aim}: {damping:.3%}"))
     if damping > bridge.damping:
         try:
             ratio = fb.damper_mass_ratio(damping, bridge.damping)
         except ValueError as error:
             flags.append(Flag("caution", f"{direction} damper: {error}"))
         else:
-            values[f"{prefix}damper_mass_ratio"] = quantity(f"Damper mass ratio, {direction}", "ratio", ratio)
+            values[f"{prefix}damper_mass_ratio"] = quantity(f"Damper mass ratio ({short})", "ratio", ratio)
             if math.isclose(ratio, tmd.MIN_MASS_RATIO):
                 flags.append(Flag("info", f"{direction}: the smallest damper considered ({ratio:.1%} of the modal "
                                           "mass) already gives the damping needed"))
