@@ -196,7 +196,7 @@ def _response(inputs: Inputs, floor: Floor, resonant: bool, limit: float, flags:
     values: dict[str, Value] = {}
     if resonant:
         walking = fw.resonant_response(floor.frequency, floor.damping, floor.modal_mass, **_resonant_options(floor))
-        values["method"] = word("Method", f"resonant walking, harmonic {walking.harmonic}")
+        values["method"] = word("Method", f"resonant, harmonic {walking.harmonic}")
         values["pacing_rate"] = quantity("Driving pacing rate", "frequency", walking.pacing_rate)
         if floor.path_length is not None:
             values["buildup"] = quantity("Build-up along the path", "ratio", walking.buildup)
@@ -208,7 +208,7 @@ def _response(inputs: Inputs, floor: Floor, resonant: bool, limit: float, flags:
             floor.frequency, floor.damping, floor.modal_mass, **_transient_options(floor)))
     else:
         footfall = fi.transient_response(floor.frequency, floor.damping, floor.modal_mass, **_transient_options(floor))
-        values["method"] = word("Method", "transient footfall impulse")
+        values["method"] = word("Method", "footfall impulse")
         values["pacing_rate"] = quantity("Footfall pacing rate", "frequency", floor.band[1])
         values["peak_velocity"] = quantity("Peak velocity", "velocity", footfall.peak_velocity)
         values["rms_velocity"] = quantity(f"R.m.s. velocity over {fi.WINDOW:g} s", "velocity", footfall.rms_velocity)
