@@ -216,7 +216,7 @@ def test_hangup_or_terminate_saves_and_exits_cleanly(make_app, state, signum):
 
     app = asyncio.run(scenario())
     assert app.return_value == 0
-    assert parse_session((state / "session.json").read_text()).texts["sdof"]["mass"] == "5 t"
+    assert parse_session((state / "session.json").read_text()).shared["structure: mass"] == "5 t"
 
 
 @pytest.mark.parametrize("content", [b"{not json", b'{"format": "other"}', b"\xff\xfe\x00binary",
