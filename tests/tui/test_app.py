@@ -417,3 +417,22 @@ def test_a_burst_of_every_key_with_a_slow_computation_leaves_the_app_running(mak
         assert app.return_code in (0, None)
 
     asyncio.run(scenario())
+
+
+def test_every_line_of_a_send_can_be_unticked_at_once(make_app):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await go_to(app, pilot, "decay")
+            before = {check: dict(texts) for check, texts in app.workspace.texts.items()}
+            await pilot.press("f8")
+            await pilot.pause()
+            await pilot.press("n")
+            assert "[x]" not in screen_text(app)
+            await pilot.press("down", "space", "enter")  # only the second line
+            await pilot.pause()
+            sent = app.screen_stack[0] and [c for c, t in app.workspace.texts.items() if t != before[c]]
+            assert len(app.messages) and app.messages[-1].startswith("Sent ") and app.messages[-1].count(" = ") == 1
+            assert sent
+
+    asyncio.run(scenario())
