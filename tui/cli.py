@@ -100,10 +100,9 @@ def _convert(text: str, unit: str | None) -> int:
     from fieldmode.calc.framework.units import convert, format_number
 
     quantity, note = convert(text, unit)
+    shown = "" if str(quantity.units) == "dimensionless" else f" {quantity.units:~P}"
     if unit:  # the unit asked for, as typed: 'mil' stays mil, 'rpm' stays rpm
         shown = f" {unit.strip()}"
-    else:
-        shown = "" if str(quantity.units) == "dimensionless" else f" {quantity.units:~P}"
     print(f"{text} = {format_number(float(quantity.magnitude))}{shown}" + (f"  ({note})" if note else ""))
     return EXIT_OK
 

@@ -7,9 +7,9 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
+from fieldmode.calc.framework import plausible
 from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.meaning import MACHINE, MOUNTS, Meaning
-from fieldmode.calc.framework import plausible
 from fieldmode.calc.framework.result import Flag, Reference, Result, Value, quantity, word
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 from fieldmode.calc.physics import forced, isolate, sdof

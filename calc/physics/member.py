@@ -11,7 +11,6 @@ from dataclasses import dataclass
 
 from fieldmode.calc.physics.constants import STANDARD_GRAVITY
 
-
 KSI = 1000 * 4.4482216152605 / 0.0254**2
 """One ksi in Pa (1 lbf = 4.4482216152605 N, 1 in = 0.0254 m: NIST SP 811 (2008), B.9)."""
 
