@@ -146,6 +146,17 @@ def test_no_damping_uses_the_undamped_transmissibility(damping: str, stiffness: 
     assert np.max(result.series["transmissibility"]) <= max(1000.0, expected)
 
 
+def test_running_exactly_at_resonance_without_damping_is_refused() -> None:
+    # Source: Chopra, Dynamics of Structures, sec. 3.5: T = 1/|1 - r^2| has no bound at r = 1
+    texts = {"frequency": "10 Hz", "mass": "1 kg", "mounts": "1", "damping": "0",
+             "stiffness": f"{(2 * math.pi * 10) ** 2!r} N/m"}
+    with pytest.raises(InputError) as caught:
+        SPEC.evaluate(texts)
+    assert str(caught.value).startswith("Mount damping ratio: ") and "unbounded" in str(caught.value)
+    assert SPEC.evaluate({**texts, "damping": "0.5 %"}).values["transmissibility"].si() == pytest.approx(
+        math.sqrt(1 + 0.01**2) / 0.01)  # Source: Chopra eq. 3.5.3 at r = 1
+
+
 def test_required_frequency_without_damping() -> None:
     result = SPEC.evaluate({**FAN, "damping": "0"})
     f = 740 / 60
