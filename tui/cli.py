@@ -89,7 +89,7 @@ def run(argv: Sequence[str]) -> int:
         return _convert(args.text, args.unit)
     spec = load(args.command)
     texts = {f.name: getattr(args, f.name) for f in spec.fields if getattr(args, f.name) is not None}
-    result = spec.evaluate(texts)
+    result = spec.evaluate(texts, args.units)
     if args.json:
         print(json.dumps(result.to_dict(), allow_nan=False))
     else:
@@ -101,8 +101,10 @@ def _convert(text: str, unit: str | None) -> int:
     from fieldmode.calc.framework.units import convert, format_number
 
     quantity, note = convert(text, unit)
-    unit = "" if str(quantity.units) == "dimensionless" else f" {quantity.units:~P}"
-    print(f"{text} = {format_number(float(quantity.magnitude))}{unit}" + (f"  ({note})" if note else ""))
+    shown = "" if str(quantity.units) == "dimensionless" else f" {quantity.units:~P}"
+    if unit:  # the unit asked for, as typed: 'mil' stays mil, 'rpm' stays rpm
+        shown = f" {unit.strip()}"
+    print(f"{text} = {format_number(float(quantity.magnitude))}{shown}" + (f"  ({note})" if note else ""))
     return EXIT_OK
 
 

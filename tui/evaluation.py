@@ -37,7 +37,7 @@ class Outcome:
 def evaluate(spec: CheckSpec, texts: Mapping[str, str], system: str) -> Outcome:
     """Read every field of ``spec``, compute if all are good, and describe what happened."""
     outcome = Outcome(spec.id, system, texts=dict(texts))
-    inputs, errors = spec.read(texts)
+    inputs, errors = spec.read(texts, system)
     for spec_field in spec.fields:
         if spec_field.name in errors:
             outcome.errors[spec_field.name] = _problem(spec_field, errors[spec_field.name])

@@ -13,9 +13,15 @@ from fieldmode.calc.framework.spec import CheckSpec, Field
 if TYPE_CHECKING:
     from fieldmode.calc.framework.reading import Inputs
 
+PEAK_KINDS = ("length", "velocity", "acceleration")
+"""Physical kinds a peak amplitude may have besides a plain number (a reading off a trace)."""
+
 FIELDS = (
-    Field("first_peak", "First peak amplitude", "number", "0.32", "", help="any unit, the same for both peaks"),
-    Field("later_peak", "Later peak amplitude", "number", "0.146", "", help="the peak n cycles later, same side"),
+    Field("first_peak", "First peak amplitude", "number", "0.32", "", other_kinds=PEAK_KINDS,
+          help="a plain number, or a displacement, velocity or acceleration (mm, mil, mm/s, g); the same kind for "
+               "both peaks"),
+    Field("later_peak", "Later peak amplitude", "number", "0.146", "", other_kinds=PEAK_KINDS,
+          help="the peak n cycles later, same side, in the same kind of unit"),
     Field("cycles", "Cycles between them", "number", "5", "", help="n, counted from the first peak"),
 )
 
@@ -29,6 +35,7 @@ REFERENCES = (
 def compute(inputs: Inputs) -> Result:
     first = inputs.value("first_peak", positive=True)
     later = inputs.value("later_peak", positive=True)
+    _same_kind(inputs)
     cycles = inputs.value("cycles", minimum=0.5, maximum=10_000)
     if later >= first:
         raise inputs.error("later_peak", "must be smaller than the first peak for a decaying trace")
@@ -55,6 +62,20 @@ def compute(inputs: Inputs) -> Result:
     if cycles < 3:
         flags.append(Flag("caution", "fewer than 3 cycles between the peaks: reading errors weigh heavily"))
     return inputs.result(values, flags=tuple(flags), references=REFERENCES)
+
+
+def _same_kind(inputs: Inputs) -> None:
+    """Refuse peaks of different kinds (a length and a velocity): their ratio means nothing."""
+    kinds = [_kind_of(inputs, name) for name in ("first_peak", "later_peak")]
+    if kinds[0] != kinds[1]:
+        raise inputs.error("later_peak", f"is {kinds[1]} but the first peak is {kinds[0]}: give both peaks in "
+                                         "the same kind of unit")
+
+
+def _kind_of(inputs: Inputs, name: str) -> str:
+    """What a peak was read as, for a message: 'a length', 'a plain number'."""
+    kind = getattr(inputs.reading(name), "kind", "number")
+    return "a plain number" if kind == "number" else f"a{'n' if kind[0] in 'aeiou' else ''} {kind}"
 
 
 SPEC = CheckSpec(

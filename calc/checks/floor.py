@@ -58,6 +58,16 @@ OCCUPANCIES: dict[str, Occupancy] = {
 """Occupancy -> Design Guide 11 limit and ISO 10137 multiplying factor. Design Guide 11 has no walking limit for
 workshops or critical areas (sensitive equipment has its own velocity criteria there)."""
 
+FREQUENCY_RANGE = (0.1, 1000.0)
+"""Floor frequencies read at all (Hz); within them each method says where it applies (the base curves of
+perception end at 1 and 80 Hz)."""
+MODAL_MASS_RANGE = (100.0, 1e8)
+"""Modal masses accepted (kg)."""
+WALKER_RANGE = (100.0, 2000.0)
+"""Walker weights accepted (N)."""
+PATH_RANGE = (0.5, 1000.0)
+"""Walking path lengths accepted (m)."""
+
 FIELDS = (
     Field("frequency", "Vertical frequency", "frequency", "5.4 Hz", "Hz", shared=True,
           help="natural frequency of the floor's first vertical mode", meaning=Meaning("natural frequency", STRUCTURE)),
@@ -137,20 +147,20 @@ def _read(inputs: Inputs) -> Floor:
     from fieldmode.calc.physics import floor_walking as fw
     from fieldmode.calc.physics import footfall
 
-    frequency = inputs.value("frequency", positive=True)
+    frequency = inputs.value("frequency", minimum=FREQUENCY_RANGE[0], maximum=FREQUENCY_RANGE[1])
     if frequency > fi.HIGHEST_HZ:
         raise inputs.error("frequency", f"above {fi.HIGHEST_HZ:g} Hz, where the base curves of perception end")
-    modal_mass = inputs.value("modal_mass", positive=True)
+    modal_mass = inputs.value("modal_mass", minimum=MODAL_MASS_RANGE[0], maximum=MODAL_MASS_RANGE[1])
     damping = inputs.value("damping", minimum=0.0)
     if damping >= 1.0:
         raise inputs.error("damping", "must be below 1 (100 %); typical floors: " + fw.typical_damping_text())
-    weight = inputs.optional("walker_weight", fw.PERSON_WEIGHT, positive=True)
+    weight = inputs.optional("walker_weight", fw.PERSON_WEIGHT, minimum=WALKER_RANGE[0], maximum=WALKER_RANGE[1])
     low = inputs.optional("pacing_low", footfall.WALKING[0], minimum=PACING_RANGE[0], maximum=PACING_RANGE[1])
     high = inputs.optional("pacing_high", footfall.WALKING[1], minimum=PACING_RANGE[0], maximum=PACING_RANGE[1])
     assert low is not None and high is not None and weight is not None
     if high < low:
         raise inputs.error("pacing_high", f"must be at least the slowest pacing rate ({low:g} Hz)")
-    path = inputs.optional("path_length", positive=True)
+    path = inputs.optional("path_length", minimum=PATH_RANGE[0], maximum=PATH_RANGE[1])
     guide = fw.AISC_DG11 if inputs.has("guide") and inputs.text("guide") == "AISC DG11" else fw.SCI_P354
     occupancy = inputs.text("occupancy") if inputs.has("occupancy") else "office"
     return Floor(frequency, modal_mass, damping, occupancy, {"weight": weight, "guide": guide}, (low, high), path)

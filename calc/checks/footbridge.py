@@ -35,6 +35,13 @@ DENSITY_POINTS = 120
 HEADROOM = 4.0
 """The acceleration axis reaches this multiple of the limit (or 1.3 times the bridge's response, if higher)."""
 
+FREQUENCY_RANGE = (0.1, 50.0)
+"""Natural frequencies accepted (Hz): beyond them the walking and crowd models mean nothing."""
+WIDTH_RANGE, LENGTH_RANGE = (0.5, 50.0), (2.0, 2000.0)
+"""Deck widths and lengths accepted (m)."""
+MASS_PER_LENGTH_RANGE, MODAL_MASS_RANGE = (1.0, 1e6), (10.0, 1e8)
+"""Mass per length (kg/m) and modal mass (kg) accepted."""
+
 FIELDS = (
     Field("frequency", "Vertical frequency", "frequency", "2.1 Hz", "Hz", shared=True,
           help="natural frequency of the first vertical mode", meaning=Meaning("natural frequency", STRUCTURE)),
@@ -128,21 +135,25 @@ def compute(inputs: Inputs) -> Result:
 
 def _read(inputs: Inputs) -> Bridge:
     from fieldmode.calc.physics import footbridge as fb
+    from fieldmode.calc.physics.floor_walking import MIN_DAMPING
 
-    frequency = inputs.value("frequency", positive=True)
-    lateral = inputs.optional("lateral_frequency", positive=True)
+    frequency = inputs.value("frequency", minimum=FREQUENCY_RANGE[0], maximum=FREQUENCY_RANGE[1])
+    lateral = inputs.optional("lateral_frequency", minimum=FREQUENCY_RANGE[0], maximum=FREQUENCY_RANGE[1])
     damping = inputs.value("damping", minimum=0.0)
     usual = ", ".join(f"{100 * zeta:g} % {name}" for name, zeta in fb.MATERIAL_DAMPING.items())
-    if damping == 0.0 or damping >= 1.0:
-        unbounded = " (a resonant response is unbounded without damping)" if damping == 0.0 else ""
-        raise inputs.error("damping", f"must be above 0 and below 1{unbounded}; typical footbridges: {usual} "
+    if damping < MIN_DAMPING or damping >= 1.0:
+        unbounded = " (a resonant response is unbounded without damping)" if damping < MIN_DAMPING else ""
+        raise inputs.error("damping", f"must be at least {100 * MIN_DAMPING:g} % and below 1{unbounded}; "
+                                      f"typical footbridges: {usual} "
                                       f"({fb.MATERIAL_DAMPING_SOURCE})")
-    width = inputs.value("deck_width", positive=True)
-    length = inputs.value("deck_length", positive=True)
+    width = inputs.value("deck_width", minimum=WIDTH_RANGE[0], maximum=WIDTH_RANGE[1])
+    length = inputs.value("deck_length", minimum=LENGTH_RANGE[0], maximum=LENGTH_RANGE[1])
     if inputs.has("mass_per_length"):
-        modal_mass = fb.modal_mass_simply_supported(inputs.value("mass_per_length", positive=True), length)
+        modal_mass = fb.modal_mass_simply_supported(
+            inputs.value("mass_per_length", minimum=MASS_PER_LENGTH_RANGE[0], maximum=MASS_PER_LENGTH_RANGE[1]),
+            length)
     else:
-        modal_mass = inputs.value("modal_mass", positive=True)
+        modal_mass = inputs.value("modal_mass", minimum=MODAL_MASS_RANGE[0], maximum=MODAL_MASS_RANGE[1])
     if inputs.has("traffic_class"):
         density = fb.traffic_density(inputs.text("traffic_class"), width * length)
         if density > MAX_DENSITY:

@@ -5,6 +5,7 @@ from __future__ import annotations
 import math
 from typing import TYPE_CHECKING
 
+from fieldmode.calc.framework import plausible
 from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.meaning import MACHINE, STRUCTURE, Meaning
 from fieldmode.calc.framework.result import Flag, Reference, Result, quantity
@@ -88,8 +89,10 @@ def compute(inputs: Inputs) -> Result:
     series = {"frequency_ratio": grid, "amplification": forced.amplification(grid, zeta),
               "phase": forced.phase(grid, zeta)}
     references = REFERENCES + ((UNBALANCE_REFERENCE,) if unbalance else ())
-    return inputs.result(values, series=series, flags=_flags(r, zeta, natural_frequency, unbalance),
-                         references=references)
+    notes = (plausible.static_deflection(mass * sdof.STANDARD_GRAVITY / stiffness, "the stiffness unit"),
+             plausible.operating_frequency(frequency))
+    flags = _flags(r, zeta, natural_frequency, unbalance) + tuple(note for note in notes if note)
+    return inputs.result(values, series=series, flags=flags, references=references)
 
 
 def _damping(inputs: Inputs) -> float:

@@ -7,9 +7,10 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
+from fieldmode.calc.framework import plausible
 from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.meaning import MACHINE, MOUNTS, Meaning
-from fieldmode.calc.framework.result import Flag, Reference, Result, Value, quantity
+from fieldmode.calc.framework.result import Flag, Reference, Result, Value, quantity, word
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 from fieldmode.calc.physics import forced, isolate, sdof
 from fieldmode.calc.physics.constants import STANDARD_GRAVITY
@@ -23,8 +24,9 @@ FIELDS = (
     Field("mass", "Mass on the mounts", "mass", "9.6 t", "t", shared=True, help="a mass, or a weight read as W/g0",
           meaning=Meaning("mass", MACHINE)),
     Field("mounts", "Number of mounts", "count", "4", "", meaning=Meaning("number of mounts", MOUNTS)),
-    Field("damping", "Mount damping ratio", "ratio", "2 %", "",
-          help="steel springs about 0.5-1 %, rubber about 5 %", meaning=Meaning("damping ratio", MOUNTS)),
+    Field("damping", "Mount damping ratio", "ratio", "2 %", "", required=False,
+          help="steel springs about 0.5-1 %, rubber about 5 %; 0 or empty: undamped",
+          meaning=Meaning("damping ratio", MOUNTS)),
     Field("stiffness", "Mount stiffness, total", "stiffness", "", "kN/mm", required=False,
           help="all mounts together; give it, a target isolation, or both", meaning=Meaning("stiffness", MOUNTS)),
     Field("target_isolation", "Target isolation", "ratio", "90 %", "", required=False,
@@ -39,6 +41,11 @@ REFERENCES = (
               "1/(r^2-1); peak T at r^2 = 2/(1+sqrt(1+8 zeta^2))",
               "Rao, Mechanical Vibrations, sec. 9.10; Clough & Penzien, Dynamics of Structures, ch. 3"),
 )
+UNDAMPED_REFERENCE = Reference("Without damping T = 1/|1 - r^2| (the limit of the damped T), unbounded at r = 1",
+                               "Chopra, Dynamics of Structures, sec. 3.5")
+
+CHART_LIMIT = 1000.0
+"""Largest T drawn on the chart of an undamped mount (the log axis would otherwise reach infinity)."""
 
 
 @overflow_guard("frequency")
@@ -46,10 +53,7 @@ def compute(inputs: Inputs) -> Result:
     frequency = inputs.value("frequency", positive=True)
     mass = inputs.value("mass", positive=True)
     mounts = int(inputs.value("mounts", positive=True))
-    zeta = inputs.value("damping", minimum=0.0)
-    if zeta == 0:
-        raise inputs.error("damping", "must be greater than zero: transmissibility at resonance is unbounded "
-                                      "without damping; steel springs have about 0.5 %")
+    zeta = inputs.optional("damping", 0.0, minimum=0.0) or 0.0
     if not inputs.has("stiffness") and not inputs.has("target_isolation"):
         raise inputs.error("stiffness", "give the mounts' total stiffness or a target isolation")
     values: dict[str, Value] = {}
@@ -64,31 +68,66 @@ def compute(inputs: Inputs) -> Result:
                                                         required_frequency)
         values["required_stiffness"] = quantity("Required stiffness, total (at most)", "stiffness",
                                                 required_stiffness)
-        undamped = frequency / isolate.undamped_ratio_for_transmissibility(1.0 - target)
-        flags.append(Flag("info", f"solved with damping: the undamped formula would allow {undamped:.4g} Hz"))
+        if zeta > 0:
+            undamped = frequency / isolate.undamped_ratio_for_transmissibility(1.0 - target)
+            flags.append(Flag("info", f"solved with damping: the undamped formula would allow {undamped:.4g} Hz"))
     stiffness = inputs.value("stiffness", positive=True) if inputs.has("stiffness") else required_stiffness
     assert stiffness is not None
     natural_frequency = sdof.angular_frequency(stiffness, mass) / (2 * math.pi)
     r = frequency / natural_frequency
     transmitted = float(forced.transmissibility(r, zeta))
-    peak_ratio = isolate.peak_transmissibility_ratio(zeta)
+    if not math.isfinite(transmitted):
+        raise inputs.error("damping", "no damping and the machine runs at the mounted natural frequency: the "
+                                      "force through the mounts is unbounded; give the damping")
+    weight = mass * STANDARD_GRAVITY
     values = {
         "natural_frequency": quantity("Natural frequency on the mounts", "frequency", natural_frequency),
         "frequency_ratio": quantity("Frequency ratio r = f/fn", "number", r),
         "transmissibility": quantity("Transmissibility T", "number", transmitted),
-        "isolation": quantity("Isolation 1 - T", "ratio", 1.0 - transmitted),
+        **_isolation_or_amplification(transmitted),
         **values,
         "stiffness": quantity("Mount stiffness, total", "stiffness", stiffness),
         "stiffness_per_mount": quantity("Stiffness per mount", "stiffness", stiffness / mounts),
-        "static_deflection": quantity("Static deflection under the weight", "length",
-                                      mass * STANDARD_GRAVITY / stiffness),
-        "peak_transmissibility": quantity("Peak T at start-up", "number", isolate.peak_transmissibility(zeta)),
-        "peak_frequency": quantity("Frequency of the peak T", "frequency", peak_ratio * natural_frequency),
+        "load_per_mount": quantity("Load per mount (weight / mounts)", "force", weight / mounts),
+        "static_deflection": quantity("Static deflection under the weight", "length", weight / stiffness),
+        **_start_up_peak(zeta, natural_frequency),
     }
     flags += _flags(inputs, r, transmitted, natural_frequency, zeta, required_stiffness, stiffness)
-    grid = np.union1d(np.linspace(0.0, max(3.0, 1.25 * r), 601), [peak_ratio, isolate.AMPLIFYING_RATIO, r])
-    series = {"frequency_ratio": grid, "transmissibility": forced.transmissibility(grid, zeta)}
-    return inputs.result(values, series=series, flags=tuple(flags), references=REFERENCES)
+    flags += _plausibility(inputs, frequency, weight / stiffness)
+    series = {"frequency_ratio": (grid := _grid(r, zeta)), "transmissibility": forced.transmissibility(grid, zeta)}
+    references = REFERENCES + ((UNDAMPED_REFERENCE,) if zeta == 0 else ())
+    return inputs.result(values, series=series, flags=tuple(flags), references=references)
+
+
+def _isolation_or_amplification(transmitted: float) -> dict[str, Value]:
+    """Isolation 1 - T while the mounts isolate (T <= 1); above, how many times they amplify."""
+    if transmitted <= 1.0:
+        return {"isolation": quantity("Isolation 1 - T", "ratio", 1.0 - transmitted)}
+    return {"amplification": quantity("Amplification by the mounts (times)", "number", transmitted)}
+
+
+def _start_up_peak(zeta: float, natural_frequency: float) -> dict[str, Value]:
+    """The largest T passed at start-up and run-down, and where; unbounded without damping."""
+    peak_ratio = isolate.peak_transmissibility_ratio(zeta)
+    peak: Value = (word("Peak T at start-up", "unbounded") if zeta == 0 else
+                   quantity("Peak T at start-up", "number", isolate.peak_transmissibility(zeta)))
+    return {"peak_transmissibility": peak,
+            "peak_frequency": quantity("Frequency of the peak T", "frequency", peak_ratio * natural_frequency)}
+
+
+def _grid(r: float, zeta: float) -> np.ndarray:
+    """Frequency ratios of the chart: up to 3 or past the operating point, with the peak, sqrt(2) and r.
+
+    Without damping T = 1/|1 - r^2| has no bound at r = 1: points where T exceeds CHART_LIMIT are left
+    out (the operating point is kept), so the curve stays finite.
+    """
+    grid = np.union1d(np.linspace(0.0, max(3.0, 1.25 * r), 601),
+                      [isolate.peak_transmissibility_ratio(zeta), isolate.AMPLIFYING_RATIO, r])
+    if zeta > 0:
+        return grid
+    with np.errstate(divide="ignore"):
+        kept = (forced.transmissibility(grid, 0.0) <= CHART_LIMIT) | (grid == r)
+    return grid[kept]
 
 
 def _target(inputs: Inputs) -> float:
@@ -101,12 +140,19 @@ def _target(inputs: Inputs) -> float:
 def _flags(inputs: Inputs, r: float, transmitted: float, natural_frequency: float, zeta: float,
            required_stiffness: float | None, stiffness: float) -> list[Flag]:
     flags = []
-    if r < isolate.AMPLIFYING_RATIO:
-        flags.append(Flag("warning", f"frequency ratio {r:.3g} is below sqrt(2): the mounts amplify the force "
-                                     f"(T = {transmitted:.3g})"))
+    if transmitted > 1.0:
+        flags.append(Flag("warning", f"Amplification by the mounts {transmitted:.3g} times: the frequency ratio "
+                                     f"{r:.3g} is below sqrt(2), so the mounts amplify the force instead of "
+                                     "isolating it"))
     if abs(r - 1.0) <= forced.RESONANCE_BAND:
         flags.append(Flag("warning", "operating within +/-20 % of the mounted natural frequency"))
-    if r > 1.0:
+    if zeta == 0:
+        if not inputs.has("damping"):
+            flags.append(Flag("info", "no damping given: treated as undamped, T = 1/|1 - r^2|"))
+        flags.append(Flag("caution", f"without damping the peak T at {natural_frequency:.4g} Hz is unbounded "
+                                     "(passed at start-up and run-down above that speed); real mounts have some "
+                                     "damping (steel springs about 0.5 %): give it for a finite peak"))
+    elif r > 1.0:
         flags.append(Flag("caution", f"start-up and run-down pass through {natural_frequency:.4g} Hz, where T "
                                      f"reaches {isolate.peak_transmissibility(zeta):.3g}"))
     if required_stiffness is not None and stiffness > required_stiffness * (1 + 1e-9):
@@ -116,6 +162,14 @@ def _flags(inputs: Inputs, r: float, transmitted: float, natural_frequency: floa
     flags.append(Flag("info", "assumes a rigid support: on a flexible floor keep the mounted frequency well "
                               "below the floor's own"))
     return flags
+
+
+def _plausibility(inputs: Inputs, frequency: float, deflection: float) -> list[Flag]:
+    """Notes for a deflection or speed that is most often a slip of unit."""
+    check = ("the stiffness unit" if inputs.has("stiffness") else
+             "the target and the speed: mounts this soft are seldom stable")
+    notes = (plausible.static_deflection(deflection, check), plausible.operating_frequency(frequency))
+    return [note for note in notes if note is not None]
 
 
 SPEC = CheckSpec(

@@ -4,6 +4,7 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING
 
+from fieldmode.calc.framework import plausible
 from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.meaning import STRUCTURE, Meaning
 from fieldmode.calc.framework.result import Flag, Reference, Result, Value, quantity, word
@@ -18,7 +19,8 @@ SECTIONS = ("rectangle", "solid-circle", "hollow-circle")
 END_CONDITIONS = ("simply-supported", "fixed-fixed", "fixed-pinned", "cantilever")
 DEFAULT_ENDS = {"beam": "simply-supported", "columns": "fixed-fixed"}
 
-_MATERIAL_HELP = ", ".join(f"{m.name} {m.modulus / 1e9:g} GPa" for m in member.MATERIALS.values())
+_MATERIAL_HELP = ", ".join(f"{m.name} " + " (SI) or ".join(e.written for e in m.moduli.values()) +
+                           (" (US)" if len(m.moduli) > 1 else "") for m in member.MATERIALS.values())
 
 FIELDS = (
     Field("element", "Element", "choice", "beam", choices=ELEMENTS,
@@ -74,7 +76,7 @@ def compute(inputs: Inputs) -> Result:
         return _springs(inputs)
     count = int(inputs.optional("count", 1.0, positive=True) or 1)
     length = _need(inputs, "length", element)
-    modulus, modulus_source = _modulus(inputs, element)
+    modulus, preset = _modulus(inputs, element)
     if element == "axial":
         area = _area(inputs)
         per_member = member.axial_stiffness(modulus, area, length)
@@ -94,6 +96,7 @@ def compute(inputs: Inputs) -> Result:
         "stiffness_per_member": quantity("Stiffness of one member", "stiffness", per_member),
         "formula": word("Formula", f"k = {count} x {formula}" if count > 1 else f"k = {formula}"),
         "modulus": quantity("Young's modulus E", "modulus", modulus),
+        "modulus_source": word("E from", preset.source if preset else "typed"),
     }
     references = [REFERENCES[element]]
     if element == "axial":
@@ -101,7 +104,8 @@ def compute(inputs: Inputs) -> Result:
     else:
         values["second_moment"] = quantity("Second moment of area I", "second_moment", second_moment)
         values["end_conditions"] = word("End conditions", ends)
-    flags = [Flag("info", f"E = {modulus / 1e9:g} GPa: {modulus_source}")] if modulus_source else []
+    note = plausible.modulus(modulus) if preset is None else Flag("info", _preset_text(inputs, preset))
+    flags = [note] if note else []
     if element == "beam" and inputs.has("mass_per_length"):
         values.update(_beam_dynamics(inputs, modulus, second_moment, length, ends, count, stiffness))
         references += [REFERENCES["frequency"], REFERENCES["rule"]]
@@ -149,14 +153,26 @@ def _need(inputs: Inputs, name: str, element: str) -> float:
     return inputs.value(name, positive=True)
 
 
-def _modulus(inputs: Inputs, element: str) -> tuple[float, str]:
-    """E in Pa, and the source of a preset (empty when E was typed)."""
+def _modulus(inputs: Inputs, element: str) -> tuple[float, member.Modulus | None]:
+    """E in Pa, and the preset used (None when E was typed).
+
+    Steel's preset follows the unit system in use: 210 GPa in SI, 29,000 ksi in US customary.
+    """
     if inputs.has("modulus"):
-        return inputs.value("modulus", positive=True), ""
+        return inputs.value("modulus", positive=True), None
     if not inputs.has("material"):
         raise inputs.error("material", f"give the material or Young's modulus E for {element}")
+    preset = member.MATERIALS[inputs.text("material")].modulus(inputs.system)
+    return preset.value, preset
+
+
+def _preset_text(inputs: Inputs, preset: member.Modulus) -> str:
+    """Which preset E was used, in which unit system, and its source."""
     material = member.MATERIALS[inputs.text("material")]
-    return material.modulus, material.source
+    if len(material.moduli) == 1:
+        return f"E = {preset.written}: {preset.source}"
+    system = "US customary" if inputs.system == "us" else "SI"
+    return f"E = {preset.written}, the {system} preset: {preset.source}"
 
 
 def _end_conditions(inputs: Inputs, element: str) -> str:

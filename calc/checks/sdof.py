@@ -7,6 +7,7 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
+from fieldmode.calc.framework import plausible
 from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.meaning import STRUCTURE, Meaning
 from fieldmode.calc.framework.result import Flag, Reference, Result, quantity, word
@@ -76,6 +77,9 @@ def compute(inputs: Inputs) -> Result:
         values["log_decrement"] = quantity("Log decrement", "number", decrement)
         values["cycles_to_halve"] = quantity("Cycles to halve amplitude", "number", math.log(2) / decrement)
     flags.extend(_flags(zeta))
+    unit = "the stiffness unit" if inputs.has("stiffness") else "the deflection unit"
+    note = plausible.static_deflection(mass * sdof.STANDARD_GRAVITY / stiffness, unit)
+    flags.extend([note] if note else [])
     u0 = inputs.optional("initial_displacement", 0.0) or 0.0
     v0 = inputs.optional("initial_velocity", 0.0) or 0.0
     if u0 == 0 and v0 == 0:

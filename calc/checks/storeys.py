@@ -12,6 +12,7 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from fieldmode.calc.checks.design_spectrum import GROUND_FIELDS, SHAPE_FIELDS, design_ground_acceleration, read_shape
+from fieldmode.calc.framework import plausible
 from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.meaning import BUILDING, Meaning
 from fieldmode.calc.framework.result import SEISMIC_CAUTION, Flag, Reference, Result, Value, quantity, word
@@ -32,6 +33,18 @@ CHART_MODES = 3
 CLOSE_PERIODS = 0.9
 """Modes whose periods are within 10 % of each other are not independent (SRSS unsafe)."""
 
+DRIFT_LIMITS = {"brittle": 0.005, "ductile": 0.0075, "separated-or-none": 0.010}
+"""Damage limitation alpha in d_r nu <= alpha h by the building's non-structural elements: brittle materials
+attached to the structure, ductile elements, or elements fixed so as not to interfere with structural
+deformations (or none). EN 1998-1:2004 4.4.3.2(1), eq. 4.31-4.33 (from memory)."""
+REDUCTION_FACTORS = {"I": 0.5, "II": 0.5, "III": 0.4, "IV": 0.4}
+"""Recommended reduction factor nu by importance class, for the more frequent seismic action of damage
+limitation. EN 1998-1:2004 4.4.3.2(2) (from memory); a National Annex may set other values."""
+DEFAULT_NON_STRUCTURAL = "brittle"
+"""Non-structural elements assumed when none are chosen (the strictest limit)."""
+DEFAULT_IMPORTANCE_CLASS = "II"
+"""Importance class assumed when none is chosen (ordinary buildings, EN 1998-1 Table 4.3)."""
+
 SEISMIC_FIELDS = (
     *(Field(f.name, f.label, f.kind, f.default, f.unit, required=False, choices=f.choices, shared=True,
             help=f.help + ("; leave empty for modes only" if f.name == "design_ground_acceleration" else ""),
@@ -41,6 +54,16 @@ SEISMIC_FIELDS = (
           help="gives the design spectrum (EN 1998-1 3.2.2.5); displacements are multiplied by q (4.3.4)",
     meaning=Meaning("behaviour factor q", BUILDING)),
     *SHAPE_FIELDS,
+    Field("non_structural", "Non-structural elements", "choice", DEFAULT_NON_STRUCTURAL,
+          choices=tuple(DRIFT_LIMITS), required=False,
+          help="damage limitation, EN 1998-1 4.4.3.2: brittle (alpha 0.005), ductile (0.0075), separated-or-none "
+               f"(0.010, fixed so as not to interfere with the structure, or none); default {DEFAULT_NON_STRUCTURAL}"),
+    Field("importance_class", "Importance class", "choice", DEFAULT_IMPORTANCE_CLASS, choices=tuple(REDUCTION_FACTORS),
+          required=False, help="EN 1998-1 Table 4.3; gives the reduction factor nu of damage limitation "
+                               f"(0.5 for I and II, 0.4 for III and IV); default {DEFAULT_IMPORTANCE_CLASS}",
+          meaning=Meaning("importance class", BUILDING)),
+    Field("reduction_factor", "Reduction factor nu", "number", "", "", required=False,
+          help="a National Annex value of nu (EN 1998-1 4.4.3.2(2)); default from the importance class"),
 )
 
 SEISMIC_REFERENCES = (
@@ -51,6 +74,10 @@ SEISMIC_REFERENCES = (
               "EN 1998-1:2004 4.3.3.3.2"),
     Reference("Design displacements d_s = q d_e", "EN 1998-1:2004 4.3.4(1)"),
 )
+DAMAGE_REFERENCE = Reference(
+    "Damage limitation d_r nu <= alpha h per storey, d_r the CQC design interstorey drift; alpha 0.005 brittle, "
+    "0.0075 ductile, 0.010 separated or no non-structural elements; nu 0.5 (importance I, II), 0.4 (III, IV)",
+    "EN 1998-1:2004 4.4.3.2, eq. 4.31-4.33; nu recommended in 4.4.3.2(2) (from memory)")
 
 FIELDS = (
     Field("masses", "Storey masses", "mass", "310 t, 300 t, 240 t", "t", many=True,
@@ -102,6 +129,9 @@ def compute(inputs: Inputs) -> Result:
     }
     flags = [Flag("warning", f"soft storey {storey}: stiffness {reason}")
              for storey, reason in storeys.soft_storeys(stiffnesses)]
+    notes = (plausible.storey_period(float(periods[0]), len(masses)),
+             plausible.storey_heights(list(inputs.array("heights"))) if inputs.has("heights") else None)
+    flags.extend(note for note in notes if note)
     flags.append(Flag("info", f"{needed} of {len(masses)} modes reach 90 % of the mass"))
     flags.extend(Flag("info", f"mode {n + 1} has no roof motion: its shape is scaled to its largest value")
                  for n in np.nonzero(found.roof_free)[0])
@@ -111,6 +141,11 @@ def compute(inputs: Inputs) -> Result:
         heights = inputs.array("heights") if inputs.has("heights") else None
         values.update(modal_demand(inputs, found, masses, heights, zeta, flags))
         references += SEISMIC_REFERENCES
+        if heights is not None:
+            values.update(damage_limitation(inputs, np.asarray(values["drift_cqc"].magnitude), heights, flags))
+            references += (DAMAGE_REFERENCE,)
+        else:
+            flags.append(Flag("info", "damage limitation (EN 1998-1 4.4.3.2) needs the storey heights: give them"))
     return inputs.result(values, series=_series(inputs, found), flags=tuple(flags), references=references)
 
 
@@ -140,6 +175,41 @@ def modal_demand(inputs: Inputs, found: Modes, masses: np.ndarray, heights: np.n
     if q != 1.0:
         flags.append(Flag("info", f"displacements and drifts are q = {q:g} times the design-spectrum values"))
     return values
+
+
+def damage_limitation(inputs: Inputs, drifts: np.ndarray, heights: np.ndarray,
+                      flags: list[Flag]) -> dict[str, Value]:
+    """EN 1998-1 4.4.3.2: d_r nu / h per storey against alpha, with d_r the design drifts (m) and h (m)."""
+    non_structural = inputs.text("non_structural") if inputs.has("non_structural") else DEFAULT_NON_STRUCTURAL
+    alpha = DRIFT_LIMITS[non_structural]
+    nu, nu_source = _reduction_factor(inputs)
+    ratios = drifts * nu / heights
+    largest = int(np.argmax(ratios))
+    over = [n for n in range(len(ratios)) if ratios[n] > alpha]
+    if over:
+        named = ", ".join(f"storey {n + 1} ({100 * ratios[n]:.3g} %)" for n in over)
+        flags.append(Flag("warning", f"damage limitation exceeded: d_r nu / h above alpha = {100 * alpha:.3g} % "
+                                     f"({non_structural} non-structural elements) in {named} (EN 1998-1 4.4.3.2)"))
+    else:
+        flags.append(Flag("info", f"damage limitation met: largest d_r nu / h {100 * ratios[largest]:.3g} % "
+                                  f"(storey {largest + 1}) <= alpha = {100 * alpha:.3g} % ({non_structural} "
+                                  "non-structural elements, EN 1998-1 4.4.3.2)"))
+    flags.append(Flag("info", f"nu = {nu:g}: {nu_source}"))
+    return {
+        "damage_drift_ratio": quantity("d_r nu / h per storey (damage limitation)", "ratio", ratios),
+        "damage_largest_ratio": quantity("Largest d_r nu / h", "ratio", float(ratios[largest])),
+        "damage_limit": quantity(f"Limit alpha ({non_structural})", "ratio", alpha),
+        "reduction_factor": quantity("Reduction factor nu", "number", nu),
+    }
+
+
+def _reduction_factor(inputs: Inputs) -> tuple[float, str]:
+    """nu of damage limitation and where it comes from: typed, or recommended for the importance class."""
+    if inputs.has("reduction_factor"):
+        return inputs.value("reduction_factor", positive=True, maximum=1.0), "typed (National Annex value)"
+    importance = inputs.text("importance_class") if inputs.has("importance_class") else DEFAULT_IMPORTANCE_CLASS
+    return REDUCTION_FACTORS[importance], (f"recommended for importance class {importance}, EN 1998-1 "
+                                           "4.4.3.2(2) (from memory)")
 
 
 def spectral_accelerations(inputs: Inputs, periods: np.ndarray, zeta: float) -> tuple[np.ndarray, str, float]:

@@ -21,6 +21,9 @@ BUILDING = "building"
 SEISMIC_ACTION = "seismic action"
 """The code's seismic action: ground type, spectrum type and shape, ground acceleration."""
 
+DAMPING_RATIO = "damping ratio"
+"""The quantity of a damping field: a bare number above 1 typed into it is read as a percentage."""
+
 OBJECTS: dict[str, str] = {
     STRUCTURE: "the structure studied (one mode or single mass)",
     MACHINE: "the machine",

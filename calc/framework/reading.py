@@ -13,17 +13,26 @@ from collections.abc import Mapping
 import numpy as np
 
 from fieldmode.calc.framework.kinds import KINDS, MAX_LIST_TEXT, MAX_PATH_TEXT
+from fieldmode.calc.framework.meaning import DAMPING_RATIO
 from fieldmode.calc.framework.result import Flag, Reference, Result, TypedInput, Value
 from fieldmode.calc.framework.spec import SIGNAL, CheckSpec, Field
-from fieldmode.calc.framework.units import InputError, Reading, read
+from fieldmode.calc.framework.units import InputError, Reading, example_of, format_value, read, read_any
 
 MAX_LIST_ITEMS = 200
 """Most items accepted in a list field."""
 _BARE_NUMBER = re.compile(r"^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$")
+SYSTEMS = ("si", "us")
+"""Unit systems: SI and US customary."""
 
 
-def read_inputs(spec: CheckSpec, texts: Mapping[str, str]) -> tuple[Inputs, dict[str, InputError]]:
-    """Read every field of ``spec``; return what was read and the errors by field name."""
+def read_inputs(spec: CheckSpec, texts: Mapping[str, str],
+                system: str = "si") -> tuple[Inputs, dict[str, InputError]]:
+    """Read every field of ``spec``; return what was read and the errors by field name.
+
+    ``system`` is the unit system in use ("si" or "us"), kept in :attr:`Inputs.system`.
+    """
+    if system not in SYSTEMS:
+        raise ValueError(f"unit system {system!r} is not one of {SYSTEMS}")
     readings: dict[str, Reading | tuple[Reading, ...] | str] = {}
     errors: dict[str, InputError] = {}
     for spec_field in spec.fields:
@@ -35,7 +44,7 @@ def read_inputs(spec: CheckSpec, texts: Mapping[str, str]) -> tuple[Inputs, dict
         except InputError as error:
             errors[spec_field.name] = error
     _check_groups(spec, readings, errors)
-    return Inputs(spec, readings, dict(texts)), errors
+    return Inputs(spec, readings, dict(texts), system), errors
 
 
 def _check_groups(spec: CheckSpec, readings: Mapping[str, object], errors: dict[str, InputError]) -> None:
@@ -65,7 +74,7 @@ def _example(spec_field: Field) -> str:
         return "'decay.csv'"
     if spec_field.kind == "text":
         return ""
-    return KINDS[spec_field.kind].example
+    return example_of((spec_field.kind, *spec_field.other_kinds))
 
 
 def read_field(spec_field: Field, text: str) -> Reading | tuple[Reading, ...] | str:
@@ -82,7 +91,16 @@ def read_field(spec_field: Field, text: str) -> Reading | tuple[Reading, ...] | 
         return text
     if spec_field.many:
         return _read_list(spec_field, text)
-    return read(text, spec_field.kind, spec_field.label, spec_field.unit)
+    return _read_quantity(spec_field, text, spec_field.label, spec_field.unit)
+
+
+def _read_quantity(spec_field: Field, text: str, label: str, unit: str | None) -> Reading:
+    """One quantity of the field's kind (or of one of its other kinds); a damping field reads a bare
+    number above 1 as a percentage."""
+    if spec_field.other_kinds:
+        return read_any(text, (spec_field.kind, *spec_field.other_kinds), label, unit)
+    damping = spec_field.meaning is not None and spec_field.meaning.quantity == DAMPING_RATIO
+    return read(text, spec_field.kind, label, unit, bare_percent=damping)
 
 
 def _read_choice(spec_field: Field, text: str) -> str:
@@ -107,7 +125,7 @@ def _read_list(spec_field: Field, text: str) -> tuple[Reading, ...]:
     units = [re.sub(r"^[+-]?[\d.]+(?:[eE][+-]?\d+)?\s*", "", item) for item in items]
     last_unit = next((u for u in reversed(units) if u), None) or spec_field.unit
     label = spec_field.label
-    return tuple(read(item, spec_field.kind, f"{label} #{i + 1}", last_unit)
+    return tuple(_read_quantity(spec_field, item, f"{label} #{i + 1}", last_unit)
                  for i, item in enumerate(items))
 
 
@@ -126,8 +144,10 @@ class Inputs:
     """The fields of one check, read and in SI, handed to its compute function."""
 
     def __init__(self, spec: CheckSpec, readings: Mapping[str, Reading | tuple[Reading, ...] | str],
-                 texts: Mapping[str, str]) -> None:
+                 texts: Mapping[str, str], system: str = "si") -> None:
         self.spec = spec
+        self.system = system
+        """The unit system in use, "si" or "us" (values are SI whatever it is)."""
         self._readings = dict(readings)
         self._texts = dict(texts)
 
@@ -179,9 +199,17 @@ class Inputs:
         if positive and magnitude <= 0:
             raise InputError(spec_field.label, text, "must be greater than zero", _example(spec_field))
         if minimum is not None and magnitude < minimum:
-            raise InputError(spec_field.label, text, f"must be at least {minimum:g} (SI)", _example(spec_field))
+            raise InputError(spec_field.label, text, f"must be at least {self._limit(name, minimum)}",
+                             _example(spec_field))
         if maximum is not None and magnitude > maximum:
-            raise InputError(spec_field.label, text, f"must be at most {maximum:g} (SI)", _example(spec_field))
+            raise InputError(spec_field.label, text, f"must be at most {self._limit(name, maximum)}",
+                             _example(spec_field))
+
+    def _limit(self, name: str, si: float) -> str:
+        """A bound of field ``name`` in the units of the system in use, e.g. '0.5000 Hz' or '500'."""
+        kind = self._readings[name]
+        kind_name = kind.kind if isinstance(kind, Reading) else self.spec.field(name).kind
+        return format_value(si, kind_name, self.system) if kind_name in KINDS else f"{si:g}"
 
     def typed(self) -> dict[str, TypedInput]:
         """Inputs as typed and as read, for the result and the calc record."""
@@ -189,7 +217,7 @@ class Inputs:
         for name, reading in self._readings.items():
             kind = self.spec.field(name).kind
             if isinstance(reading, Reading):
-                typed[name] = TypedInput(reading.text, reading.si, KINDS[kind].si or "1", reading.note)
+                typed[name] = TypedInput(reading.text, reading.si, KINDS[reading.kind].si or "1", reading.note)
             elif isinstance(reading, tuple):
                 typed[name] = TypedInput(self._texts.get(name, ""), None, KINDS[kind].si or "1",
                                          "; ".join(r.note for r in reading if r.note))

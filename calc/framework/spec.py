@@ -52,6 +52,9 @@ class Field:
     help: str = ""
     meaning: Meaning | None = None
     """Which quantity of which object the field is; values move between checks only by meaning."""
+    other_kinds: tuple[str, ...] = ()
+    """Other physical kinds the field accepts (a peak amplitude as a length, velocity or acceleration);
+    the text is read as the first of ``kind`` and these that fits it."""
 
     @property
     def option(self) -> str:
@@ -118,15 +121,18 @@ class CheckSpec:
                 return curve.kind
         raise KeyError(f"{self.id} declares no series {name!r}")
 
-    def read(self, texts: Mapping[str, str]) -> tuple[Inputs, dict[str, InputError]]:
-        """Read every field; return what was read and the errors by field name."""
+    def read(self, texts: Mapping[str, str], system: str = "si") -> tuple[Inputs, dict[str, InputError]]:
+        """Read every field; return what was read and the errors by field name.
+
+        ``system`` ("si" or "us") is the unit system in use: a preset may depend on it (steel's E).
+        """
         from fieldmode.calc.framework.reading import read_inputs  # loads pint: not needed to draw fields
 
-        return read_inputs(self, texts)
+        return read_inputs(self, texts, system)
 
-    def evaluate(self, texts: Mapping[str, str]) -> Result:
+    def evaluate(self, texts: Mapping[str, str], system: str = "si") -> Result:
         """Read the texts and compute; raise the first :class:`InputError` found."""
-        inputs, errors = self.read(texts)
+        inputs, errors = self.read(texts, system)
         if errors:
             raise next(iter(errors.values()))
         return self.compute(inputs)

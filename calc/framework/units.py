@@ -40,6 +40,10 @@ _SUPERSCRIPTS = str.maketrans({"²": "^2", "³": "^3", "⁴": "^4", "·": "*", "
 _UNIT_START = re.compile(r"^(?:1\s*/\s*)?[A-Za-z%(]")
 _POWER = re.compile(r"(\*\*|\^)")
 _ANGULAR = re.compile(r"\brad(ians?)?\b")
+_MIL = re.compile(r"\bmils?\b")
+"""The mil of machine amplitudes is 0.001 in (NIST SP 811, B.8); pint's own mil is an angle
+(pi/32000 rad), so the word is rewritten as pint's thou before pint parses a unit."""
+MIL_NOTE = "mil read as 0.001 in"
 
 # Rotational speeds are cycles per time: pint's rpm is 2*pi rad/min, so they are
 # rewritten before pint sees them (1450 rpm -> 24.17 Hz, not 151.8).
@@ -84,11 +88,14 @@ class Reading:
         return float(self.quantity.to(KINDS[self.kind].si).magnitude)
 
 
-def read(text: str, kind: str, field: str = "", default_unit: str | None = None) -> Reading:
+def read(text: str, kind: str, field: str = "", default_unit: str | None = None, *,
+         bare_percent: bool = False) -> Reading:
     """Read ``text`` as a quantity of ``kind`` and say how it was read.
 
-    A bare number takes ``default_unit`` (or the kind's SI unit). Raises
-    :class:`InputError` for anything that is not a finite quantity of that kind.
+    A bare number takes ``default_unit`` (or the kind's SI unit). In a ratio field a bare
+    number above 1 is flagged ("did you mean 5 %?"), or with ``bare_percent`` (damping
+    fields) read as a percentage and said so. Raises :class:`InputError` for anything that
+    is not a finite quantity of that kind.
     """
     spec = KINDS[kind]
     name = field or spec.label
@@ -105,12 +112,41 @@ def read(text: str, kind: str, field: str = "", default_unit: str | None = None)
         raise InputError(name, text, "number out of range", spec.example)
     if not unit_text:
         unit_text = default_unit or spec.si
-        if spec.ratio and 1.0 < magnitude <= 100.0:
+        plain = spec.ratio and not unit_text  # a ratio field whose bare number has no unit of its own
+        if plain and bare_percent and magnitude > 1.0:
+            return Reading(text, Q_(magnitude / 100.0, ""), kind, f"read as {magnitude:g} %")
+        if plain and 1.0 < magnitude <= 100.0:
             return Reading(text, Q_(magnitude, ""), kind, f"did you mean {magnitude:g} %?")
     reading = _read_unit(text, name, magnitude, unit_text, spec)
     if spec.integer and not float(reading.quantity.to("").magnitude).is_integer():
         raise InputError(name, text, "expected a whole number", spec.example)
     return reading
+
+
+def read_any(text: str, kinds: tuple[str, ...], field: str = "", default_unit: str | None = None) -> Reading:
+    """Read ``text`` as the first of ``kinds`` that fits it (a peak amplitude: a length, a velocity...).
+
+    The reading's ``kind`` says which was read. When none fits, the error names every kind accepted.
+    """
+    errors = []
+    for kind in kinds:
+        try:
+            return read(text, kind, field, default_unit)
+        except InputError as error:
+            errors.append(error)
+    if len({error.problem for error in errors}) == 1:  # not about the kind: empty, out of range, unknown unit
+        raise errors[0]
+    labels = [KINDS[kind].label for kind in kinds]
+    wanted = ", ".join(labels[:-1]) + " or " + labels[-1]
+    raise InputError(field or labels[0], text, f"expected a {wanted}", example_of(kinds))
+
+
+def example_of(kinds: tuple[str, ...]) -> str:
+    """Example text for a field of these kinds: the kind's own example, or the first of each kind's."""
+    if len(kinds) == 1:
+        return KINDS[kinds[0]].example
+    firsts = [match.group(0) for kind in kinds if (match := re.match(r"'[^']*'", KINDS[kind].example))]
+    return ", ".join(firsts[:-1]) + " or " + firsts[-1]
 
 
 def _read_unit(text: str, name: str, magnitude: float, unit_text: str, spec: Kind) -> Reading:
@@ -135,7 +171,7 @@ def _read_unit(text: str, name: str, magnitude: float, unit_text: str, spec: Kin
     if spec.name == "frequency" and not angular and _has_angle(units):
         raise InputError(name, text, "write a rotational speed as rpm, rev/s or Hz", spec.example)
     if quantity.check(spec.dimension):
-        return Reading(text, quantity, spec.name, note or _pound_note(unit_text, spec))
+        return Reading(text, quantity, spec.name, note or _pound_note(unit_text, spec) or _mil_note(unit_text))
     return _read_other_dimension(text, name, quantity, unit_text, spec)
 
 
@@ -164,6 +200,11 @@ def _pound_note(unit_text: str, spec: Kind) -> str:
     return ""
 
 
+def _mil_note(unit_text: str) -> str:
+    """Say that a mil was read as a length."""
+    return MIL_NOTE if _MIL.search(unit_text) else ""
+
+
 def _has_angle(units: pint.Unit) -> bool:
     return any(part in ("radian", "revolution", "degree", "turn") for part in units._units)
 
@@ -189,7 +230,7 @@ def _safe_units(text: str, name: str, unit_text: str, spec: Kind) -> pint.Unit:
             raise InputError(name, text, "only small whole powers (m^2 ... m^4) are allowed", spec.example)
     if len(pieces) > 9:
         raise InputError(name, text, "too many powers in the unit", spec.example)
-    cleaned = _POWER.sub("**", unit_text)
+    cleaned = _MIL.sub("thou", _POWER.sub("**", unit_text))
     try:
         return ureg.parse_units(cleaned)
     except (pint.errors.PintError, AttributeError, TypeError, ValueError, SyntaxError,

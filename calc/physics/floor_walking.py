@@ -72,6 +72,9 @@ PERSON_WEIGHT = 700.0
 """Weight of a walker Q, N (0.7 kN, as in AISC Design Guide 11 and the footbridge guides; from memory)."""
 STRIDE = 0.75
 """Length of a walking step, m (Bachmann & Ammann 1987, walking at about 2 Hz; from memory)."""
+MIN_DAMPING = 1e-4
+"""Least damping ratio a resonant response is computed for (0.01 %): less is no floor or footbridge, and the
+build-up would take longer than any crossing (common practice, no source)."""
 MAX_DAMPING = 0.2
 """Largest damping ratio a damping target may ask for: beyond it no floor or footbridge is plausible."""
 LOWEST_FLOOR_HZ = base_curves.LOWEST_HZ
@@ -95,8 +98,8 @@ def typical_damping_text() -> str:
 
 
 def check_damping(damping: float, resonant: bool = True) -> None:
-    """Refuse a damping ratio outside 0 < zeta < 1 (0 allowed when ``resonant`` is False)."""
-    if not math.isfinite(damping) or damping >= 1.0 or damping < 0.0 or (resonant and damping == 0.0):
+    """Refuse a damping ratio outside MIN_DAMPING <= zeta < 1 (0 allowed when ``resonant`` is False)."""
+    if not math.isfinite(damping) or damping >= 1.0 or damping < 0.0 or (resonant and damping < MIN_DAMPING):
         unbounded = " (a resonant response is unbounded without damping)" if resonant and damping == 0.0 else ""
         raise ValueError(f"damping ratio must be {'above' if resonant else 'at least'} 0 and below 1, "
                          f"not {damping:g}{unbounded}; typical floors: {typical_damping_text()} ({ALLEN_MURRAY})")
@@ -380,8 +383,9 @@ def resonant_response_factors(frequencies: np.ndarray, damping: float, modal_mas
 def resonant_damping_for_limit(response_factor: float, frequency: float, modal_mass: float,
                                **options: Any) -> float | None:
     """Least damping ratio that brings the resonant response factor to ``response_factor`` (brentq; the
-    response falls as damping rises). 0.0 when a short path keeps it within the limit even undamped,
-    None when more than :data:`MAX_DAMPING` would be needed. ``options`` as :func:`resonant_response`."""
+    response falls as damping rises). 0.0 when a short path keeps it within the limit at the least damping
+    :data:`MIN_DAMPING`, None when more than :data:`MAX_DAMPING` would be needed. ``options`` as
+    :func:`resonant_response`."""
     from scipy.optimize import brentq
 
     check_positive("response factor limit", response_factor)
@@ -391,7 +395,7 @@ def resonant_damping_for_limit(response_factor: float, frequency: float, modal_m
 
     if excess(MAX_DAMPING) > 0.0:
         return None
-    low = 1e-6
+    low = MIN_DAMPING
     if excess(low) <= 0.0:
         return 0.0
     return brentq(excess, low, MAX_DAMPING, xtol=1e-12, rtol=1e-12)

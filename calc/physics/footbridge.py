@@ -20,6 +20,7 @@ import numpy as np
 from fieldmode.calc.physics import footfall, tmd
 from fieldmode.calc.physics.floor_walking import (
     MAX_DAMPING,
+    MIN_DAMPING,
     STRIDE,
     check_damping,
     check_positive,
@@ -318,7 +319,8 @@ def single_pedestrian_damping_for_limit(limit: float, frequency: float, modal_ma
                                         direction: str = "vertical", **options: Any) -> float | None:
     """Damping ratio that brings one walker's acceleration (:func:`single_pedestrian_acceleration`, same
     options) to ``limit`` (m/s^2): closed form at steady state, brentq with a crossing. 0.0 when the walker
-    cannot excite the mode or a crossing keeps it within the limit undamped; None beyond MAX_DAMPING."""
+    cannot excite the mode or a crossing keeps it within the limit at the least damping MIN_DAMPING; None
+    beyond MAX_DAMPING."""
     from scipy.optimize import brentq
 
     check_positive("acceleration limit", limit)
@@ -328,7 +330,7 @@ def single_pedestrian_damping_for_limit(limit: float, frequency: float, modal_ma
 
     if excess(MAX_DAMPING) > 0.0:
         return None
-    low = 1e-9
+    low = MIN_DAMPING
     if excess(low) <= 0.0:
         return 0.0
     return brentq(excess, low, MAX_DAMPING, xtol=1e-13, rtol=1e-12)

@@ -11,23 +11,41 @@ from dataclasses import dataclass
 
 from fieldmode.calc.physics.constants import STANDARD_GRAVITY
 
+KSI = 1000 * 4.4482216152605 / 0.0254**2
+"""One ksi in Pa (1 lbf = 4.4482216152605 N, 1 in = 0.0254 m: NIST SP 811 (2008), B.9)."""
+
 
 @dataclass(frozen=True)
-class Material:
-    """A material preset: Young's modulus E (Pa) and where the value comes from."""
+class Modulus:
+    """A preset Young's modulus E (Pa), as its source writes it, and the source."""
 
-    name: str
-    modulus: float
+    value: float
+    written: str
     source: str
 
 
+@dataclass(frozen=True)
+class Material:
+    """A material preset: Young's modulus per unit system ("si", "us") with where each comes from; a
+    material with one value has only "si", used in both systems."""
+
+    name: str
+    moduli: dict[str, Modulus]
+
+    def modulus(self, system: str) -> Modulus:
+        """The preset of the unit system in use (the SI one where the system has none of its own)."""
+        return self.moduli.get(system, self.moduli["si"])
+
+
 MATERIALS: dict[str, Material] = {m.name: m for m in (
-    Material("steel", 210e9, "structural steel, EN 1993-1-1:2005 3.2.6(1)"),
-    Material("concrete", 33e9, "concrete C30/37, Ecm, EN 1992-1-1:2004 Table 3.1"),
-    Material("timber", 11e9, "softwood C24, E0,mean, EN 338:2016 Table 1"),
-    Material("aluminium", 70e9, "aluminium alloys, EN 1999-1-1:2007 3.2.5(1)"),
+    Material("steel", {"si": Modulus(210e9, "210 GPa", "structural steel, EN 1993-1-1:2005 3.2.6(1)"),
+                       "us": Modulus(29_000 * KSI, "29,000 ksi", "structural steel, AISC 360, Specification "
+                                                                "for Structural Steel Buildings (from memory)")}),
+    Material("concrete", {"si": Modulus(33e9, "33 GPa", "concrete C30/37, Ecm, EN 1992-1-1:2004 Table 3.1")}),
+    Material("timber", {"si": Modulus(11e9, "11 GPa", "softwood C24, E0,mean, EN 338:2016 Table 1")}),
+    Material("aluminium", {"si": Modulus(70e9, "70 GPa", "aluminium alloys, EN 1999-1-1:2007 3.2.5(1)")}),
 )}
-"""Young's modulus presets (Pa) with their published source."""
+"""Young's modulus presets (Pa) with their published source; steel follows the unit system in use."""
 
 
 @dataclass(frozen=True)

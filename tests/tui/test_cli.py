@@ -117,6 +117,27 @@ def test_convert(capsys: pytest.CaptureFixture[str]) -> None:
     assert code == 0 and "24.17 Hz" in out  # Common practice (no source): 1450 / 60 = 24.17
 
 
+def test_convert_mils(capsys: pytest.CaptureFixture[str]) -> None:
+    code, out, _ = run(capsys, "convert", "5 mil", "mm")
+    # From memory: NIST SP 811 (2008), B.8: mil (0.001 in) = 2.54E-05 m, so 5 mil = 0.127 mm
+    assert code == 0 and out.strip() == "5 mil = 0.1270 mm  (mil read as 0.001 in)"
+    code, out, _ = run(capsys, "convert", "0.127 mm", "mil")
+    assert code == 0 and out.strip() == "0.127 mm = 5.000 mil"
+
+
+def test_the_units_option_picks_the_steel_preset(capsys: pytest.CaptureFixture[str]) -> None:
+    beam = ["member", "--element", "beam", "--length", "7.2 m", "--second-moment", "29000 cm^4", "--material", "steel"]
+    moduli = {}
+    for system in ("si", "us"):
+        code, out, _ = run(capsys, *beam, "--units", system, "--json")
+        assert code == 0
+        moduli[system] = json.loads(out)["results"]["modulus"]
+    # Source: EN 1993-1-1:2005 3.2.6(1), E = 210 GPa; the JSON stays SI whatever the units
+    assert moduli["si"] == {"value": pytest.approx(210e9), "unit": "Pa"}
+    # From memory: AISC 360, E = 29,000 ksi; Source: NIST SP 811 (2008), B.9 for lbf and in
+    assert moduli["us"] == {"value": pytest.approx(29e6 * 4.4482216152605 / 0.0254**2), "unit": "Pa"}
+
+
 def test_checks_lists_every_check_and_option(capsys: pytest.CaptureFixture[str]) -> None:
     code, out, _ = run(capsys, "checks")
     assert code == 0

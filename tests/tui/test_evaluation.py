@@ -38,7 +38,16 @@ def test_interpretations_beside_the_fields():
     assert outcome.notes["mass"].startswith("read as weight: m = W/g0 = 12.0")
     # Source: NIST SP 811 B.8: 1 kip = 4448.2216152605 N, 1 in = 0.0254 m -> 45 kip/in = 7.881 kN/mm
     assert outcome.notes["stiffness"] == "= 7.881 kN/mm"
-    assert "did you mean 3 %?" in outcome.notes["damping"]
+    assert outcome.notes["damping"] == "= 3.000 %; read as 3 %"  # a damping field reads a bare 3 as 3 %
+
+
+@pytest.mark.parametrize(("spec", "name"), [(spec, f.name) for spec in SPECS for f in spec.fields
+                                             if f.meaning is not None and f.meaning.quantity == "damping ratio"],
+                         ids=lambda item: getattr(item, "id", item))
+def test_the_reading_beside_a_damping_field_says_a_bare_number_is_a_percentage(spec, name):
+    outcome = evaluate(spec, spec.demo_texts() | {name: "5"}, "si")
+    assert outcome.notes[name] == "= 5.000 %; read as 5 %"
+    assert outcome.result is not None, (outcome.errors, outcome.problem)
 
 
 def test_errors_from_the_compute_step_land_on_their_field():

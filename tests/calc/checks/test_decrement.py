@@ -41,6 +41,46 @@ def test_decrement_refuses_a_growing_trace() -> None:
         DECREMENT.evaluate({"first_peak": "0.2", "later_peak": "0.3", "cycles": "4"})
 
 
+@pytest.mark.parametrize(("first", "later", "kind", "unit"), [
+    ("2.5 mm", "1.1 mm", "length", "m"),
+    ("0.3 in", "0.132 in", "length", "m"),
+    ("5 mil", "2.2 mil", "length", "m"),  # machine amplitudes in mils
+    ("12 mm/s", "5.28 mm/s", "velocity", "m/s"),
+    ("0.5 in/s", "0.22 in/s", "velocity", "m/s"),
+    ("0.05 g", "0.022 g", "acceleration", "m/s^2"),
+    ("0.4 m/s^2", "0.176 m/s^2", "acceleration", "m/s^2"),
+    ("2.5", "1.1", "number", "1"),
+])
+def test_peaks_with_units_give_a_unitless_ratio(first: str, later: str, kind: str, unit: str) -> None:
+    result = DECREMENT.evaluate({"first_peak": first, "later_peak": later, "cycles": "5"})
+    # From memory: Chopra, Dynamics of Structures, sec. 2.2: delta = (1/j) ln(u_i / u_(i+j)); the peaks' unit cancels
+    assert si(result, "amplitude_ratio") == pytest.approx(2.5 / 1.1, rel=1e-12)
+    assert si(result, "log_decrement") == pytest.approx(math.log(2.5 / 1.1) / 5, rel=1e-12)
+    assert result.values["amplitude_ratio"].kind == "number"
+    inputs = result.to_dict()["inputs"]
+    assert inputs["first_peak"]["unit"] == unit and inputs["later_peak"]["unit"] == unit
+
+
+@pytest.mark.parametrize(("first", "later", "words"), [
+    ("2.5 mm", "1.1 mm/s", "is a velocity but the first peak is a length"),
+    ("0.05 g", "1.1 mm", "is a length but the first peak is an acceleration"),
+    ("2.5", "1.1 mm", "is a length but the first peak is a plain number"),
+    ("12 mm/s", "0.5", "is a plain number but the first peak is a velocity"),
+])
+def test_peaks_of_different_kinds_are_refused_naming_the_later_peak(first: str, later: str, words: str) -> None:
+    with pytest.raises(InputError) as caught:
+        DECREMENT.evaluate({"first_peak": first, "later_peak": later, "cycles": "5"})
+    assert str(caught.value).startswith("Later peak amplitude: ")
+    assert words in str(caught.value)
+
+
+@pytest.mark.parametrize("text", ["2 kN", "3 t", "4 Hz", "2 kN/mm"])
+def test_a_peak_that_is_no_amplitude_is_refused(text: str) -> None:
+    with pytest.raises(InputError) as caught:
+        DECREMENT.evaluate({"first_peak": text, "later_peak": "1", "cycles": "5"})
+    assert str(caught.value).startswith("First peak amplitude: expected a number, length, velocity or acceleration")
+
+
 @settings(max_examples=200, deadline=None)
 @given(first=numbers, ratio=st.floats(min_value=1.0001, max_value=1e6), cycles=st.floats(min_value=0.5,
                                                                                           max_value=1e4))

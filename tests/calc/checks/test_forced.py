@@ -172,3 +172,17 @@ def test_any_text_in_any_field_raises_only_input_error(load: str, field: str, te
         return
     assert all(math.isfinite(v.si()) for v in result.values.values())
     assert all(np.all(np.isfinite(s)) for s in result.series.values())
+
+
+@pytest.mark.parametrize(("change", "note"), [
+    ({"stiffness": "0.8 kN/mm"}, "check the stiffness unit"),  # 117.7 mm under 9.6 t
+    ({"frequency": "740"}, "740 Hz is 44400 rpm"),  # a speed typed without its unit
+    ({"frequency": "100 Hz"}, ""),
+    ({}, ""),
+])
+def test_implausible_inputs_get_a_note(change: dict[str, str], note: str) -> None:
+    result = SPEC.evaluate({**FAN, **change})
+    # Common practice (no source): over 100 mm under its own weight, or above 100 Hz (6000 rpm), is most often a
+    # slip of unit
+    notes = [flag.text for flag in result.flags if flag.level == "caution" and "check" in flag.text]
+    assert [n for n in notes if note in n] if note else not notes

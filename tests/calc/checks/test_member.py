@@ -99,6 +99,47 @@ def test_material_presets_and_their_source_are_shown(material: str, gpa: float) 
     assert any(f"{gpa:g} GPa" in flag.text and "EN " in flag.text for flag in result.flags)
 
 
+KSI = 1000 * 4.4482216152605 / 0.0254**2  # Source: NIST SP 811 (2008), B.9: 1 lbf = 4.4482216152605 N, 1 in = 0.0254 m
+
+
+@pytest.mark.parametrize(("system", "modulus", "written", "source"), [
+    ("si", 210e9, "210 GPa", "EN 1993-1-1:2005 3.2.6"),  # Source: EN 1993-1-1:2005 3.2.6(1), E = 210000 N/mm^2
+    # From memory: AISC 360, Specification for Structural Steel Buildings, E = 29,000 ksi
+    ("us", 29_000 * KSI, "29,000 ksi", "AISC 360"),
+])
+def test_the_steel_preset_follows_the_unit_system(system: str, modulus: float, written: str, source: str) -> None:
+    result = SPEC.evaluate(BEAM, system)
+    assert result.values["modulus"].si() == pytest.approx(modulus, rel=1e-12)
+    # Source: beam theory, midspan stiffness of a simply supported beam 48 EI/L^3
+    assert result.values["stiffness"].si() == pytest.approx(48 * modulus * I / L**3, rel=1e-12)
+    assert source in result.values["modulus_source"].si()
+    system_name = "US customary" if system == "us" else "SI"
+    assert any(flag.text.startswith(f"E = {written}, the {system_name} preset: ") and source in flag.text
+               for flag in result.flags)
+
+
+def test_a_typed_modulus_and_other_presets_ignore_the_unit_system() -> None:
+    for texts in ({**BEAM, "material": "", "modulus": "200 GPa"}, {**BEAM, "material": "concrete"}):
+        si, us = SPEC.evaluate(texts, "si"), SPEC.evaluate(texts, "us")
+        assert us.values["modulus"].si() == si.values["modulus"].si()
+    assert SPEC.evaluate({**BEAM, "material": "", "modulus": "200 GPa"}, "us").values["modulus_source"].si() == "typed"
+
+
+@pytest.mark.parametrize(("modulus", "noted"), [
+    ("210000", True),  # 210000 N/mm^2 typed bare into a GPa field
+    ("210 MPa", True),
+    ("0.9 GPa", True),
+    ("251 GPa", True),
+    ("210 GPa", False),
+    ("11 GPa", False),
+    ("1 GPa", False),
+])
+def test_a_typed_modulus_outside_1_to_250_gpa_gets_a_note(modulus: str, noted: bool) -> None:
+    result = SPEC.evaluate({**BEAM, "material": "", "modulus": modulus})
+    # Common practice (no source): structural materials span about 7 GPa (timber) to 210 GPa (steel)
+    assert any(flag.level == "caution" and "check the unit" in flag.text for flag in result.flags) == noted
+
+
 def test_simply_supported_beam_frequency_closed_form() -> None:
     # Source: Clough & Penzien, Dynamics of Structures, ch. 18; Blevins Table 8-1: f1 = pi/(2 L^2) sqrt(EI/m)
     expected = math.pi / (2 * L**2) * math.sqrt(E * I / M)

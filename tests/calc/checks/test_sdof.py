@@ -72,10 +72,12 @@ def test_bad_input_names_the_field(texts: dict[str, str], field: str) -> None:
     assert str(caught.value).startswith(field)
 
 
-def test_bare_damping_number_is_flagged() -> None:
+def test_bare_damping_number_above_one_is_a_percentage() -> None:
     result = SPEC.evaluate({"mass": "9.6 t", "stiffness": "42 kN/mm", "damping": "5"})
-    assert any("did you mean 5 %" in flag.text and flag.level == "caution" for flag in result.flags)
-    assert result.values["regime"].si() == "overdamped"
+    # Common practice (no source): damping is quoted in per cent; a ratio of 5 (500 %) is never meant
+    assert result.values["damping_ratio"].si() == pytest.approx(0.05)
+    assert any(flag.text == "Damping ratio: read as 5 %" and flag.level == "info" for flag in result.flags)
+    assert result.values["regime"].si() == "underdamped"
 
 
 @settings(max_examples=200, deadline=None)
@@ -87,3 +89,20 @@ def test_any_input_raises_only_input_error(mass: str, stiffness: str, damping: s
     except InputError:
         return
     assert np.all(np.isfinite(result.series["displacement"]))
+
+
+@pytest.mark.parametrize(("texts", "note"), [
+    ({"stiffness": "0.9 kN/mm"}, "check the stiffness unit"),  # 9.6 t g0 / 0.9 kN/mm = 104.6 mm
+    ({"stiffness": "1 kN/mm"}, ""),  # 94.1 mm
+    ({"stiffness": "", "static_deflection": "120 mm"}, "check the deflection unit"),
+    ({"stiffness": "", "static_deflection": "100 mm"}, ""),
+])
+def test_a_static_deflection_over_100_mm_gets_a_note(texts: dict[str, str], note: str) -> None:
+    result = SPEC.evaluate({**SPEC.demo_texts(), **texts})
+    # Common practice (no source): over 100 mm under its own weight (below 1.58 Hz) is most often a stiffness
+    # typed in N/mm for kN/mm
+    deflection = result.values["static_deflection"].si()
+    notes = [flag.text for flag in result.flags if "static deflection" in flag.text]
+    assert (deflection > 0.1) == bool(note)
+    assert notes == ([f"static deflection {deflection * 1000:.4g} mm under the mass's own weight is over 100 mm: "
+                      f"check {note[6:]}"] if note else [])

@@ -231,3 +231,88 @@ def test_national_annex_corner_period_is_used() -> None:
     # Source: EN 1998-1:2004 3.2.2.2, eq. 3.3: with TC = 0.7 s a 0.628 s mode is on the plateau
     assert result.values["spectral_acceleration"].si()[0] == pytest.approx(0.2 * G0 * 1.15 * 2.5, rel=1e-12)
     assert "TC 0.7 s" in result.values["spectrum_used"].si()
+
+
+def _hand_drifts_cqc(sa: np.ndarray) -> np.ndarray:
+    """CQC interstorey drifts (m) of the textbook two-storey frame from spectral accelerations per mode."""
+    first = np.array([4 / 3 * 0.5 * sa[0] / OMEGA[0] ** 2, -1 / 3 * -1 * sa[1] / OMEGA[1] ** 2])
+    roof = np.array([4 / 3 * sa[0] / OMEGA[0] ** 2, -1 / 3 * sa[1] / OMEGA[1] ** 2])
+    r, z = 2.0, 0.05
+    # Source: Der Kiureghian (1981), equal damping
+    rho = 8 * z**2 * (1 + r) * r**1.5 / ((1 - r**2) ** 2 + 4 * z**2 * r * (1 + r) ** 2)
+    return np.array([math.sqrt(d @ d + 2 * rho * d[0] * d[1]) for d in (first, roof - first)])
+
+
+# From memory: EN 1998-1:2004 4.4.3.2(1), eq. 4.31-4.33: d_r nu <= alpha h, alpha 0.005 (brittle non-structural
+# elements attached), 0.0075 (ductile), 0.010 (not interfering, or none); 4.4.3.2(2): nu recommended 0.5 for
+# importance classes I and II, 0.4 for III and IV
+@pytest.mark.parametrize(("texts", "alpha", "nu"), [
+    ({}, 0.005, 0.5),
+    ({"non_structural": "brittle", "importance_class": "I"}, 0.005, 0.5),
+    ({"non_structural": "ductile", "importance_class": "III"}, 0.0075, 0.4),
+    ({"non_structural": "separated-or-none", "importance_class": "IV"}, 0.010, 0.4),
+    ({"non_structural": "sep", "reduction_factor": "0.45"}, 0.010, 0.45),  # a National Annex nu
+])
+def test_damage_limitation_by_hand(texts: dict[str, str], alpha: float, nu: float) -> None:
+    result = evaluate_two_storeys(**texts)
+    sa = np.array([_elastic_type1_ground_c(t, 0.2 * G0) for t in PERIODS])
+    expected = _hand_drifts_cqc(sa) * nu / np.array([4.0, 3.0])
+    np.testing.assert_allclose(result.values["damage_drift_ratio"].si(), expected, rtol=1e-12)
+    assert result.values["damage_largest_ratio"].si() == pytest.approx(expected.max(), rel=1e-12)
+    assert result.values["damage_limit"].si() == pytest.approx(alpha)
+    assert result.values["reduction_factor"].si() == pytest.approx(nu)
+    warnings = [flag.text for flag in result.flags if flag.level == "warning" and "damage limitation" in flag.text]
+    over = [n + 1 for n in range(2) if expected[n] > alpha]
+    if over:
+        assert len(warnings) == 1
+        assert all(f"storey {n} (" in warnings[0] for n in over)
+        assert all(f"storey {n} (" not in warnings[0] for n in (1, 2) if n not in over)
+    else:
+        assert not warnings and any("damage limitation met" in flag.text for flag in result.flags)
+    assert any("4.4.3.2" in ref.source for ref in result.references)
+
+
+def test_the_two_storey_frame_exceeds_the_brittle_limit_in_its_top_storey() -> None:
+    sa = np.array([_elastic_type1_ground_c(t, 0.2 * G0) for t in PERIODS])
+    ratios = _hand_drifts_cqc(sa) * 0.5 / np.array([4.0, 3.0])
+    # Source: hand calculation above; the case has one storey on each side of alpha = 0.5 %
+    assert ratios[0] < 0.005 < ratios[1]
+    result = evaluate_two_storeys()
+    warning = next(flag.text for flag in result.flags if flag.level == "warning" and "damage" in flag.text)
+    assert f"storey 2 ({100 * ratios[1]:.3g} %)" in warning and "storey 1" not in warning
+
+
+def test_damage_limitation_uses_q_times_the_design_drifts() -> None:
+    q = 4.0
+    result = evaluate_two_storeys(behaviour_factor="4")
+    ag, s, tc = 0.2 * G0, 1.15, 0.6
+    # Source: EN 1998-1:2004 3.2.2.5 eq. 3.14-3.15 and 4.3.4(1) d_s = q d_e; 4.4.3.2 (from memory) d_r nu / h
+    sa = np.array([max(ag * s * 2.5 / q * min(1.0, tc / t), 0.2 * ag) for t in PERIODS])
+    expected = q * _hand_drifts_cqc(sa) * 0.5 / np.array([4.0, 3.0])
+    np.testing.assert_allclose(result.values["damage_drift_ratio"].si(), expected, rtol=1e-12)
+
+
+def test_damage_limitation_needs_the_storey_heights() -> None:
+    result = evaluate_two_storeys(heights="")
+    assert "damage_drift_ratio" not in result.values
+    assert any("needs the storey heights" in flag.text for flag in result.flags)
+
+
+def test_the_demo_shows_the_damage_limitation() -> None:
+    result = evaluate()
+    ratios = result.values["damage_drift_ratio"].si()
+    assert len(ratios) == 3 and result.values["damage_limit"].si() == pytest.approx(0.005)
+    assert any("damage limitation" in flag.text for flag in result.flags)
+
+
+@pytest.mark.parametrize(("texts", "words"), [
+    ({"reduction_factor": "0"}, "greater than zero"),
+    ({"reduction_factor": "1.5"}, "at most 1"),
+    ({"importance_class": "V"}, "not one of the choices"),
+    ({"non_structural": "glass"}, "not one of the choices"),
+])
+def test_bad_damage_inputs(texts: dict[str, str], words: str) -> None:
+    with pytest.raises(InputError) as caught:
+        evaluate_two_storeys(**texts)
+    label = SPEC.field(next(iter(texts))).label
+    assert str(caught.value).startswith(label) and words in str(caught.value)

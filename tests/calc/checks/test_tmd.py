@@ -81,10 +81,10 @@ def test_target_damping_solves_for_the_mass_ratio() -> None:
 
 
 @pytest.mark.parametrize(("texts", "field", "words"), [
-    ({"mass_ratio": "0"}, "Mass ratio", "at least 0.001"),
+    ({"mass_ratio": "0"}, "Mass ratio", "at least 0.1000 %"),
     ({"mass_ratio": "0 %"}, "Mass ratio", "at least"),
     ({"mass_ratio": "-2 %"}, "Mass ratio", "at least"),
-    ({"mass_ratio": "60 %"}, "Mass ratio", "at most 0.5"),
+    ({"mass_ratio": "60 %"}, "Mass ratio", "at most 50.00 %"),
     ({"mass_ratio": ""}, "Mass ratio", "give mass ratio or target equivalent damping"),
     ({"target_damping": "5 %"}, "Target equivalent damping", "give only one"),
     ({"mass_ratio": "", "target_damping": "0.5 %"}, "Target equivalent damping", "above the mode's own damping"),

@@ -11,7 +11,15 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from fieldmode.calc.framework.kinds import KINDS
-from fieldmode.calc.framework.units import InputError, convert, format_number, format_value, read
+from fieldmode.calc.framework.units import (
+    InputError,
+    convert,
+    format_number,
+    format_value,
+    kind_of_text,
+    read,
+    read_any,
+)
 
 # Source: NIST SP 811 (2008), Appendix B.8 and B.9 (exact or defining values)
 NIST_FACTORS = [
@@ -104,6 +112,70 @@ def test_ratios_accept_percent_and_fractions_and_flag_suspicious_bare_numbers(
     reading = read(text, "ratio", "Damping ratio")
     assert reading.si == pytest.approx(ratio)
     assert ("did you mean" in reading.note) is flagged
+
+
+@pytest.mark.parametrize(("text", "ratio", "note"), [
+    ("5", 0.05, "read as 5 %"), ("0.5", 0.5, ""), ("30", 0.30, "read as 30 %"),
+    ("150", 1.5, "read as 150 %"), ("1", 1.0, ""), ("0.05", 0.05, ""), ("5 %", 0.05, ""),
+])
+def test_a_damping_field_reads_a_bare_number_above_one_as_a_percentage(text: str, ratio: float, note: str) -> None:
+    reading = read(text, "ratio", "Damping ratio", "", bare_percent=True)
+    # Common practice (no source): damping is quoted in per cent, 5 means 5 %
+    assert reading.si == pytest.approx(ratio)
+    assert reading.note == note
+
+
+# From memory: NIST SP 811 (2008), B.8: mil (0.001 in) = 2.54E-05 m; 1 in = 0.0254 m exactly (B.9, confirmed)
+@pytest.mark.parametrize(("text", "kind", "si"), [
+    ("5 mil", "length", 5 * 2.54e-5),
+    ("5 mils", "length", 5 * 2.54e-5),
+    ("2 mil/s", "velocity", 2 * 2.54e-5),
+    ("1000 mil", "length", 0.0254),
+])
+def test_mil_is_a_thousandth_of_an_inch(text: str, kind: str, si: float) -> None:
+    reading = read(text, kind, "Amplitude")
+    assert reading.si == pytest.approx(si, rel=1e-12)
+    assert reading.note == "mil read as 0.001 in"
+
+
+def test_pint_angular_mil_never_reaches_a_field() -> None:
+    # pint's own mil is pi/32000 rad; ours is a length everywhere, so an angle field refuses it
+    with pytest.raises(InputError, match="not a unit of angle"):
+        read("5 mil", "angle", "Phase")
+    assert read("4 mm", "length", "Amplitude").note == ""  # 'mm' and 'mi' are untouched
+    assert read("1 mi", "length", "Distance").si == pytest.approx(1609.344)  # Source: NIST SP 811, B.9
+    assert kind_of_text("5 mil") == "length"
+
+
+def test_convert_mils() -> None:
+    quantity, note = convert("5 mil", "mm")
+    # From memory: NIST SP 811 (2008), B.8: mil = 2.54E-05 m
+    assert quantity.magnitude == pytest.approx(0.127, rel=1e-12)
+    assert note == "mil read as 0.001 in"
+    assert convert("0.127 mm", "mil")[0].magnitude == pytest.approx(5.0, rel=1e-12)
+
+
+PEAK_KINDS = ("number", "length", "velocity", "acceleration")
+
+
+@pytest.mark.parametrize(("text", "kind", "si"), [
+    ("0.32", "number", 0.32), ("2.5 mm", "length", 0.0025), ("3 mm/s", "velocity", 0.003),
+    ("0.02 g", "acceleration", 0.02 * 9.80665),  # Source: 3rd CGPM (1901), standard gravity
+])
+def test_read_any_takes_the_first_kind_that_fits(text: str, kind: str, si: float) -> None:
+    reading = read_any(text, PEAK_KINDS, "Peak")
+    assert reading.kind == kind and reading.si == pytest.approx(si)
+
+
+@pytest.mark.parametrize(("text", "words"), [
+    ("5 kN", "expected a number, length, velocity or acceleration"),
+    ("5 blorbs", "unknown unit"),
+    ("", "empty"),
+])
+def test_read_any_names_every_kind_when_none_fits(text: str, words: str) -> None:
+    with pytest.raises(InputError) as caught:
+        read_any(text, PEAK_KINDS, "Peak")
+    assert str(caught.value).startswith("Peak: ") and words in str(caught.value)
 
 
 def test_bare_number_takes_the_field_unit() -> None:

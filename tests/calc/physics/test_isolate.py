@@ -56,3 +56,26 @@ def test_peak_transmissibility(zeta: float) -> None:
     # From memory: Rao, Mechanical Vibrations, sec. 9.10: r_peak^2 = (sqrt(1+8 zeta^2) - 1)/(4 zeta^2)
     assert isolate.peak_transmissibility_ratio(zeta) ** 2 == pytest.approx(
         (math.sqrt(1 + 8 * zeta**2) - 1) / (4 * zeta**2))
+
+
+@pytest.mark.parametrize("r", [0.3, 0.7, 1.6, 3.0])
+def test_undamped_transmissibility_against_a_mass_on_a_spring(r: float) -> None:
+    import numpy as np
+    from scipy.integrate import solve_ivp
+
+    m, k = 1200.0, 4.7e6
+    omega = r * math.sqrt(k / m)
+    steady = 1.0 / (k - m * omega**2)  # particular solution u = steady sin(w t) under F = sin(w t)
+
+    def motion(t: float, state: np.ndarray) -> list[float]:
+        return [state[1], (math.sin(omega * t) - k * state[0]) / m]
+
+    # started on the particular solution (u = 0, u' = steady w), so no free vibration is mixed in
+    times = np.linspace(0.0, 6 * 2 * math.pi / omega, 3001)
+    # Oracle: scipy.integrate.solve_ivp (DOP853) on m u'' + k u = sin(w t), no damping, away from resonance
+    solution = solve_ivp(motion, (0.0, times[-1]), [0.0, steady * omega], t_eval=times, method="DOP853",
+                         rtol=1e-11, atol=1e-16)
+    support_force = float(np.max(np.abs(k * solution.y[0])))
+    assert forced.transmissibility(r, 0.0) == pytest.approx(support_force, rel=1e-6)
+    # Source: Chopra, Dynamics of Structures, sec. 3.5: with zeta = 0, T = 1 / |1 - r^2|
+    assert forced.transmissibility(r, 0.0) == pytest.approx(1.0 / abs(1.0 - r**2), rel=1e-12)
