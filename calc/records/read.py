@@ -5,7 +5,8 @@ API
 ``read_record(path, time_column=None, signal_column=None, sample_rate=None, signal_unit=None)``
 returns a :class:`Record` with a uniform ``time`` (s), the ``signal`` in SI (m/s^2, m/s or m;
 as in the file when no unit is known), ``sample_rate`` (Hz), ``notes`` (how the file was read),
-``channel_name``, ``kind`` ("acceleration", "velocity", "length" or "") and ``columns``.
+``channel_name``, ``kind`` ("acceleration", "velocity", "length" or ""), ``columns``, and the
+file's ``size`` (bytes) and ``sha256`` (of its content). ``demo:NAME`` is the shipped demo record NAME.
 
 - Text with or without header and comment lines (``#``, ``%``, ``//``), blank lines, separated
   by commas, semicolons, tabs or spaces; decimal commas where the separator is not a comma.
@@ -35,8 +36,10 @@ from pathlib import Path
 
 import numpy as np
 
+from fieldmode.calc.demo import demo_path
 from fieldmode.calc.framework.units import InputError, read
 from fieldmode.calc.records import layout as layout_mod
+from fieldmode.calc.records.fingerprint import check_unchanged, fingerprint
 from fieldmode.calc.records.layout import Layout, RecordError, cells_of
 
 MAX_FILE_BYTES = 256 * 1024 * 1024
@@ -69,6 +72,10 @@ class Record:
     kind: str
     """Physical kind of the signal: 'acceleration', 'velocity', 'length', or '' when its unit is unknown."""
     columns: tuple[str, ...]
+    size: int
+    """Bytes in the file."""
+    sha256: str
+    """SHA-256 of the file's content, as hex."""
 
 
 def read_record(path: str | os.PathLike[str], time_column: int | str | None = None,
@@ -85,7 +92,7 @@ def read_record(path: str | os.PathLike[str], time_column: int | str | None = No
                          "'200 Hz'")
     if sample_rate is not None and time_column is not None:
         raise RecordError(shown, "give a time column or a sample rate, not both")
-    layout = layout_mod.sniff(Path(path), shown, MAX_FILE_BYTES)
+    layout = layout_mod.sniff(_file(shown), shown, MAX_FILE_BYTES)
     names = layout.names
     notes = list(layout.notes)
     time_index = None
@@ -99,6 +106,7 @@ def read_record(path: str | os.PathLike[str], time_column: int | str | None = No
     if signal_index == time_index:
         raise RecordError(shown, f"the time and the signal are both column {signal_index + 1}")
     used = [signal_index] if time_index is None else [time_index, signal_index]
+    content = fingerprint(layout.path, shown)
     data = _load(layout, used)
     signal = data[:, -1]
     if len(signal) < MIN_SAMPLES:
@@ -113,7 +121,17 @@ def read_record(path: str | os.PathLike[str], time_column: int | str | None = No
     kind, factor = _signal_unit(signal_unit, names[signal_index], notes)
     if factor != 1.0:
         signal = signal * factor
-    return Record(time, signal, fs, tuple(notes), names[signal_index], kind, names)
+    check_unchanged(layout.path, shown, content)
+    return Record(time, signal, fs, tuple(notes), names[signal_index], kind, names, content.size, content.sha256)
+
+
+def _file(shown: str) -> Path:
+    """The file a typed path names: the shipped demo record for 'demo:NAME', else the path itself."""
+    try:
+        demo = demo_path(shown)
+    except LookupError as error:
+        raise RecordError(shown, str(error)) from error
+    return Path(shown) if demo is None else demo
 
 
 def _column(layout: Layout, wanted: int | str, what: str) -> int:
