@@ -129,5 +129,5 @@ class ScopeButton(RadioButton):
     """A choice drawn '(*) this check' or '( ) whole session', with '>' at the cursor: no colour needed."""
 
     def render(self) -> Content:
-        cursor = self.has_class("-selected") and self.parent is not None and self.parent.has_focus
+        cursor = self.has_class("-selected") and isinstance(self.parent, RadioSet) and self.parent.has_focus
         return Content(f"{'>' if cursor else ' '} {'(*)' if self.value else '( )'} {self.label}")
