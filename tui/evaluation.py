@@ -95,12 +95,12 @@ def _file_note(path: str) -> str:
         demo = demo_path(path)
     except LookupError:
         return "no such demo record"
+    if demo is not None:
+        return "shipped demo record"
     try:
-        size = os.stat(demo or os.path.expanduser(path)).st_size
+        size = os.stat(os.path.expanduser(path)).st_size
     except OSError as error:
         return f"not found ({error.strerror})" if error.strerror else "not found"
-    if demo is not None:
-        return f"the shipped demo record, {size / 1024:.1f} kB"
     if os.path.isdir(os.path.expanduser(path)):
         return "a folder, not a file"
     return f"file, {size / 1024:.1f} kB"
