@@ -416,7 +416,15 @@ class FieldmodeApp(App[int]):
         from fieldmode.tui.widgets.export_screen import ExportScreen
 
         names = {"check": default_name(self.workspace.current), "session": default_name("session")}
-        self.push_screen(ExportScreen(names, self.write_record), self._recorded)
+        self.push_screen(ExportScreen(names, self.write_record, self.workspace.project, self.keep_project),
+                         self._recorded)
+
+    def keep_project(self, name: str, text: str) -> None:
+        """Keep a project field of the calc record in the session (typed once, saved with it)."""
+        if self.workspace.project.get(name) == text:
+            return
+        self.workspace.project[name] = text
+        self.save_soon()
 
     def _recorded(self, message: str | None) -> None:
         if message:
@@ -433,7 +441,7 @@ class FieldmodeApp(App[int]):
         entries = [Entry(spec, dict(self.workspace.texts[spec.id]),
                          evaluate_guarded(spec, self.workspace.texts[spec.id], system)) for spec in specs]
         try:
-            write_record(path, entries, system)
+            write_record(path, entries, system, self.workspace.project)
         except OSError as error:
             return describe_os_error(error, path) + "; nothing was lost, try another path"
         return ""

@@ -1,7 +1,9 @@
 """The calc record: one check or the whole session as Markdown and JSON, written atomically.
 
-Each record holds the date, the tool version, every input as typed and in SI, the
-results with units, the flags, the methods with their published sources, and the caution.
+Each record holds the project, job number, engineer and note, the date, the tool version, every
+input as typed and in SI, every file read (as typed, bytes, SHA-256), the results with units, the
+flags, the methods with their published sources, every curve (a thinned table in Markdown, in full
+in JSON), each chart as drawn (ASCII), and the caution.
 """
 
 from __future__ import annotations
@@ -9,16 +11,24 @@ from __future__ import annotations
 import json
 import math
 import time
-from collections.abc import Sequence
+from collections.abc import Mapping, Sequence
 from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
 
 from fieldmode.calc import __version__
+from fieldmode.calc.framework.result import Result
 from fieldmode.calc.framework.spec import CheckSpec
 from fieldmode.tui.evaluation import Outcome
 from fieldmode.tui.files import write_all_atomic
 from fieldmode.tui.present import flag_text, si_text, typed_si_text, value_text
+from fieldmode.tui.record_curves import curves_json, curves_markdown
+from fieldmode.tui.session import PROJECT_FIELDS
+
+PROJECT_LABELS = {"project": "Project", "job": "Job number", "engineer": "Engineer", "note": "Note"}
+"""How each project field (fieldmode.tui.session.PROJECT_FIELDS) is named in the dialog and the record."""
+MAX_PROJECT_TEXT = 200
+"""Longest text of a project field (characters)."""
 
 
 @dataclass(frozen=True)
@@ -45,10 +55,18 @@ def _cell(text: object) -> str:
     return str(text).replace("|", "\\|").replace("\n", " ")
 
 
-def markdown(entries: Sequence[Entry], system: str, when: time.struct_time) -> str:
+def _project(project: Mapping[str, str] | None) -> dict[str, str]:
+    """The four project fields, each a one-line text ('' when not given)."""
+    given = project or {}
+    return {name: " ".join(given.get(name, "").split()) for name in PROJECT_FIELDS}
+
+
+def markdown(entries: Sequence[Entry], system: str, when: time.struct_time,
+             project: Mapping[str, str] | None = None) -> str:
     """The record as Markdown."""
     cautions = list(dict.fromkeys(entry.spec.caution for entry in entries))
     lines = ["# fieldmode calc record", "",
+             *(f"- {PROJECT_LABELS[name]}: {text or '(not given)'}" for name, text in _project(project).items()),
              f"- Date: {time.strftime('%Y-%m-%d %H:%M %z', when)}",
              f"- Tool: fieldmode {__version__}",
              f"- Results shown in: {'SI' if system == 'si' else 'US customary'} (JSON file: SI)",
@@ -72,6 +90,9 @@ def _check_markdown(entry: Entry) -> list[str]:
         read_as = outcome.errors.get(spec_field.name) or outcome.notes.get(spec_field.name, "")
         lines.append(f"| {_cell(spec_field.label_with_unit)} | {_cell(typed)} | {_cell(si)} | {_cell(read_as)} |")
     lines.append("")
+    if result is not None and result.files:
+        lines += ["### Files read", "", "| File (as typed) | Bytes | SHA-256 |", "| --- | --- | --- |",
+                  *(f"| {_cell(file.path)} | {file.size} | {file.sha256} |" for file in result.files), ""]
     if result is None:
         problems = [f"- {spec.field(name).label}: {text}" for name, text in outcome.errors.items()]
         return lines + ["### Not computed", "", *problems, *([f"- {outcome.problem}"] if outcome.problem else []), ""]
@@ -82,7 +103,28 @@ def _check_markdown(entry: Entry) -> list[str]:
     lines += [f"- {flag_text(flag)}" for flag in result.flags] or ["- none"]
     lines += ["", "### Method and sources", ""]
     lines += [f"- {ref.method}: {ref.source}" for ref in result.references] or ["- none stated"]
-    return lines + ["", f"Caution: {result.caution}", ""]
+    lines.append("")
+    curves = curves_markdown(spec, result, outcome.system)
+    if curves:
+        lines += ["### Curves", "", *curves]
+    lines += _charts(spec.id, result, outcome.system)
+    return lines + [f"Caution: {result.caution}", ""]
+
+
+def _charts(check_id: str, result: Result, system: str) -> list[str]:
+    """Each chart panel as drawn, ASCII in a fenced block ([] for a check without a chart)."""
+    from fieldmode.tui.charts import panels_of
+    from fieldmode.tui.charts.plain import panel_text
+
+    draws = panels_of(check_id)
+    lines = ["### Charts", ""] if draws else []
+    for number, draw in enumerate(draws, start=1):
+        try:
+            drawn = panel_text(draw, result, system)
+        except Exception as error:  # written into the record, as the app shows it: never hidden
+            drawn = f"chart could not be drawn: {type(error).__name__}: {error}"
+        lines += [f"Chart {number} of {len(draws)}:", "", "```text", drawn, "```", ""]
+    return lines
 
 
 def _finite(data: Any) -> Any:
@@ -96,26 +138,34 @@ def _finite(data: Any) -> Any:
     return data
 
 
-def as_json(entries: Sequence[Entry], when: time.struct_time) -> dict[str, Any]:
-    """The record as a JSON object: SI values (Result.to_dict), or the texts and errors if not computed."""
+def as_json(entries: Sequence[Entry], when: time.struct_time,
+            project: Mapping[str, str] | None = None) -> dict[str, Any]:
+    """The record as a JSON object: the project fields; per check its SI values (Result.to_dict), or the texts
+    and errors if not computed; and ``series``: check id -> every curve in full (SI)."""
     checks: list[dict[str, Any]] = []
+    series: dict[str, Any] = {}
     for entry in entries:
-        if entry.outcome.result is not None:
-            checks.append({"title": entry.spec.title, **entry.outcome.result.to_dict()})
+        result = entry.outcome.result
+        if result is not None:
+            checks.append({"title": entry.spec.title, **result.to_dict()})
+            if result.series:
+                series[entry.spec.id] = curves_json(entry.spec, result)
         else:
             checks.append({"check": entry.spec.id, "title": entry.spec.title,
                            "inputs": {name: {"text": text} for name, text in entry.texts.items() if text.strip()},
                            "errors": dict(entry.outcome.errors), "problem": entry.outcome.problem or None,
                            "caution": entry.spec.caution})
     return _finite({"record": "fieldmode calc record", "version": __version__,
-                    "date": time.strftime("%Y-%m-%dT%H:%M:%S%z", when), "checks": checks})
+                    "date": time.strftime("%Y-%m-%dT%H:%M:%S%z", when), "project": _project(project),
+                    "checks": checks, "series": series})
 
 
-def write_record(path: Path, entries: Sequence[Entry], system: str) -> tuple[Path, Path]:
+def write_record(path: Path, entries: Sequence[Entry], system: str,
+                 project: Mapping[str, str] | None = None) -> tuple[Path, Path]:
     """Write the Markdown and JSON files for ``path``, both or neither; raise OSError naming the file that
     could not be written."""
     when = time.localtime()
     md_path, json_path = record_paths(path)
-    record = json.dumps(as_json(entries, when), indent=1, allow_nan=False, ensure_ascii=False) + "\n"
-    write_all_atomic({md_path: markdown(entries, system, when), json_path: record})
+    record = json.dumps(as_json(entries, when, project), indent=1, allow_nan=False, ensure_ascii=False) + "\n"
+    write_all_atomic({md_path: markdown(entries, system, when, project), json_path: record})
     return md_path, json_path

@@ -11,6 +11,7 @@ import os
 from collections.abc import Mapping
 from dataclasses import dataclass, field
 
+from fieldmode.calc.demo import demo_path
 from fieldmode.calc.framework.result import Result
 from fieldmode.calc.framework.spec import CheckSpec, Field
 from fieldmode.calc.framework.units import InputError
@@ -89,7 +90,13 @@ def _problem(spec_field: Field, error: InputError) -> str:
 
 
 def _file_note(path: str) -> str:
-    """What a path field names: a file and its size, a folder, or nothing."""
+    """What a path field names: a file and its size, the shipped demo record, a folder, or nothing."""
+    try:
+        demo = demo_path(path)
+    except LookupError:
+        return "no such demo record"
+    if demo is not None:
+        return "shipped demo record"
     try:
         size = os.stat(os.path.expanduser(path)).st_size
     except OSError as error:

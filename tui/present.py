@@ -11,7 +11,7 @@ import numpy as np
 
 from fieldmode.calc.framework.kinds import KINDS
 from fieldmode.calc.framework.result import Flag, Value, si_unit
-from fieldmode.calc.framework.units import Reading, display_unit, format_value, unit_factor, unit_name
+from fieldmode.calc.framework.units import Reading, display_unit, format_number, format_value, unit_factor, unit_name
 from fieldmode.tui.printable import printable
 
 LEVEL_MARKS: dict[str, str] = {"info": "i", "caution": "!", "warning": "!!"}
@@ -55,6 +55,14 @@ def typed_si_text(si: float | None, unit: str | None) -> str:
     if si is None:
         return ""
     return f"{si:.6g}" + ("" if unit in (None, "1") else f" {unit}")
+
+
+def column_text(values: np.ndarray, kind: str, system: str) -> tuple[str, list[str]]:
+    """A curve's values in one engineering unit (chosen by the largest), 4 significant figures: (unit, texts)."""
+    unit = display_unit(values, kind, system)
+    scaled = np.asarray(values, dtype=float) * unit_factor(unit, kind)
+    texts = [f"{v:.0f}" if KINDS[kind].integer and np.isfinite(v) else format_number(float(v)) for v in scaled]
+    return unit_name(unit, kind), texts
 
 
 def field_text(si: float, kind: str, system: str) -> str:

@@ -4,10 +4,10 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING
 
-from fieldmode.calc.demo import HEEL_DROP, demo_file
+from fieldmode.calc.demo import HEEL_DROP, demo_name
 from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.meaning import STRUCTURE, Meaning
-from fieldmode.calc.framework.result import Flag, Reference, Result, Value, quantity
+from fieldmode.calc.framework.result import Flag, InputFile, Reference, Result, Value, quantity
 from fieldmode.calc.framework.spec import SIGNAL, CheckSpec, Field, Series
 from fieldmode.calc.records.columns import RECORD_COLUMN_FIELDS
 
@@ -16,7 +16,7 @@ if TYPE_CHECKING:
     from fieldmode.calc.records.decay import Decay
 
 FIELDS = (
-    Field("file", "Record file", "path", str(demo_file(HEEL_DROP)), positional=True,
+    Field("file", "Record file", "path", demo_name(HEEL_DROP), positional=True,
           help="CSV or text: a time column and a signal column, or a signal and --sample-rate"),
     *RECORD_COLUMN_FIELDS,
     Field("signal_unit", "Signal unit", "text", "", required=False,
@@ -67,7 +67,7 @@ def compute(inputs: Inputs) -> Result:
     values["samples"] = quantity("Samples", "count", float(len(record.signal)))
     notes = tuple(Flag("info", f"{record.channel_name}: {note}") for note in record.notes)
     return inputs.result(values, series=found.series, flags=notes + found.flags, references=REFERENCES,
-                         signal_kind=kind)
+                         signal_kind=kind, files=(InputFile(path, record.source.size, record.source.sha256),))
 
 
 def _optional_text(inputs: Inputs, name: str) -> str | None:

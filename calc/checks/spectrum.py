@@ -7,10 +7,10 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from fieldmode.calc.checks.design_spectrum import GROUND_FIELDS, design_ground_acceleration, read_shape, shape_flag
-from fieldmode.calc.demo import GROUND_MOTION, demo_file
+from fieldmode.calc.demo import GROUND_MOTION, demo_name
 from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.meaning import BUILDING, Meaning
-from fieldmode.calc.framework.result import SEISMIC_CAUTION, Flag, Reference, Result, Value, quantity
+from fieldmode.calc.framework.result import SEISMIC_CAUTION, Flag, InputFile, Reference, Result, Value, quantity
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 from fieldmode.calc.physics import design_spectrum
 from fieldmode.calc.physics.spectrum import DEFAULT_GRID, period_grid
@@ -36,7 +36,7 @@ MAX_COUNT = 500
 SIGNAL_UNITS = ("g", "m/s^2", "cm/s^2")
 
 FIELDS = (
-    Field("file", "Accelerogram file", "path", str(demo_file(GROUND_MOTION)), positional=True,
+    Field("file", "Accelerogram file", "path", demo_name(GROUND_MOTION), positional=True,
           help="CSV or text: a time column and a ground acceleration column, or the signal and --sample-rate"),
     Field("signal_unit", "Signal unit", "choice", "g", choices=SIGNAL_UNITS, required=False,
           help="unit of the acceleration column; default from its header"),
@@ -69,7 +69,7 @@ REFERENCES = (
 def compute(inputs: Inputs) -> Result:
     from fieldmode.calc.physics import spectrum as core  # imported here: every other command starts faster
 
-    time, acc, dt, notes = _record(inputs)
+    time, acc, dt, notes, file = _record(inputs)
     zeta = inputs.optional("damping", 0.05, minimum=0.0, maximum=0.9)
     assert zeta is not None
     periods = _periods(inputs)
@@ -118,7 +118,7 @@ def compute(inputs: Inputs) -> Result:
         notes.append(Flag("info", f"overlay {overlay.text}"))
         references += (Reference("Horizontal elastic response spectrum", "EN 1998-1:2004 3.2.2.2, eq. 3.2-3.6"),)
     flags = notes + _flags(spectrum, dt, time[-1] - time[0], acc, corrected, pga)
-    return inputs.result(values, series=series, flags=tuple(flags), references=references)
+    return inputs.result(values, series=series, flags=tuple(flags), references=references, files=(file,))
 
 
 def _marked(single: Spectrum) -> dict[str, Value]:
@@ -153,12 +153,13 @@ def _periods(inputs: Inputs) -> np.ndarray:
     return period_grid(shortest, longest, int(count))
 
 
-def _record(inputs: Inputs) -> tuple[np.ndarray, np.ndarray, float, list[Flag]]:
-    """Time (s), ground acceleration (m/s^2), time step (s) and reading notes of the file."""
+def _record(inputs: Inputs) -> tuple[np.ndarray, np.ndarray, float, list[Flag], InputFile]:
+    """Time (s), ground acceleration (m/s^2), time step (s), reading notes, and the file read."""
     from fieldmode.calc.records.read import MAX_SAMPLE_RATE, MIN_SAMPLE_RATE, read_record
 
     rate = inputs.optional("sample_rate", None, minimum=MIN_SAMPLE_RATE, maximum=MAX_SAMPLE_RATE)
-    record = read_record(inputs.text("file"), time_column=_optional_text(inputs, "time_column"),
+    path = inputs.text("file")
+    record = read_record(path, time_column=_optional_text(inputs, "time_column"),
                          signal_column=_optional_text(inputs, "signal_column"), sample_rate=rate,
                          signal_unit=_optional_text(inputs, "signal_unit"))
     if record.kind != "acceleration":
@@ -171,7 +172,7 @@ def _record(inputs: Inputs) -> tuple[np.ndarray, np.ndarray, float, list[Flag]]:
     if np.max(np.abs(record.signal)) > MAX_ACCELERATION:
         raise inputs.error("file", f"accelerations above {MAX_ACCELERATION:g} m/s^2: check the signal unit")
     notes = [Flag("info", f"{record.channel_name}: {note}") for note in record.notes]
-    return record.time, record.signal, dt, notes
+    return record.time, record.signal, dt, notes, InputFile(path, record.source.size, record.source.sha256)
 
 
 def _optional_text(inputs: Inputs, name: str) -> str | None:

@@ -14,7 +14,7 @@ import numpy as np
 
 from fieldmode.calc.framework.kinds import KINDS, MAX_LIST_TEXT, MAX_PATH_TEXT
 from fieldmode.calc.framework.meaning import DAMPING_RATIO
-from fieldmode.calc.framework.result import Flag, Reference, Result, TypedInput, Value
+from fieldmode.calc.framework.result import Flag, InputFile, Reference, Result, TypedInput, Value
 from fieldmode.calc.framework.spec import SIGNAL, CheckSpec, Field
 from fieldmode.calc.framework.units import InputError, Reading, example_of, format_value, read, read_any
 
@@ -236,8 +236,10 @@ class Inputs:
 
     def result(self, values: Mapping[str, Value], *, series: Mapping[str, np.ndarray] | None = None,
                flags: tuple[Flag, ...] = (), references: tuple[Reference, ...] = (),
-               signal_kind: str | None = None) -> Result:
+               signal_kind: str | None = None, files: tuple[InputFile, ...] = ()) -> Result:
         """Build this check's :class:`Result`, adding input notes to the flags.
+
+        ``files`` names every file the check read (the calc record and ``--json`` list them).
 
         ``signal_kind`` is the physical kind of the record's signal, for curves declared as
         :data:`~fieldmode.calc.framework.spec.SIGNAL`. Raises ValueError for a curve the spec does
@@ -253,4 +255,4 @@ class Inputs:
                 kind = signal_kind
             kinds[name] = kind
         return Result(self.spec.id, self.typed(), dict(values), made, self.notes() + tuple(flags), references,
-                      self.spec.caution, kinds)
+                      self.spec.caution, kinds, files)

@@ -51,6 +51,20 @@ class TypedInput:
     note: str = ""
 
 
+@dataclass(frozen=True)
+class InputFile:
+    """A file a check read: the path as the person typed it, its size and the SHA-256 of its content."""
+
+    path: str
+    size: int
+    """Bytes."""
+    sha256: str
+    """Hex digest."""
+
+    def to_dict(self) -> dict[str, Any]:
+        return {"path": self.path, "bytes": self.size, "sha256": self.sha256}
+
+
 Magnitude = float | np.ndarray | str
 """An SI magnitude (a number or an array), or a word such as a damping regime."""
 
@@ -100,7 +114,7 @@ def si_unit(kind: str) -> str:
 
 @dataclass(frozen=True)
 class Result:
-    """Everything a check found: inputs, values, curves (SI arrays), flags and sources."""
+    """Everything a check found: inputs, files read, values, curves (SI arrays), flags and sources."""
 
     check: str
     inputs: Mapping[str, TypedInput]
@@ -111,6 +125,8 @@ class Result:
     caution: str = CAUTION
     series_kinds: Mapping[str, str] = field(default_factory=dict)
     """Series name -> physical kind of its values."""
+    files: tuple[InputFile, ...] = ()
+    """Every file the check read."""
 
     def number(self, name: str) -> float | None:
         """A finite scalar result by name, or None when absent, a word, an array or not finite."""
@@ -118,7 +134,7 @@ class Result:
         return None if value is None else value.number()
 
     def to_dict(self) -> dict[str, Any]:
-        """The JSON contract: SI values, units pint can parse, strings with unit null."""
+        """The JSON contract: SI values, units pint can parse, strings with unit null; ``files`` when it read any."""
         return {
             "check": self.check,
             "inputs": {name: {"text": typed.text, "value": typed.value, "unit": typed.unit}
@@ -128,4 +144,5 @@ class Result:
             "flags": [{"level": flag.level, "text": flag.text} for flag in self.flags],
             "references": [{"method": ref.method, "source": ref.source} for ref in self.references],
             "caution": self.caution,
+            **({"files": [file.to_dict() for file in self.files]} if self.files else {}),
         }

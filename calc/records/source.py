@@ -15,12 +15,11 @@ import stat
 import sys
 from dataclasses import dataclass
 
+from fieldmode.calc.demo import demo_path
 from fieldmode.calc.records.layout import RecordError
 
 STDIN = "-"
 """The path that means standard input."""
-DEMO_PREFIX = "demo:"
-"""Paths starting with this name a shipped demo record, e.g. 'demo:heel_drop_demo.csv'."""
 
 
 @dataclass(frozen=True)
@@ -40,11 +39,11 @@ class Source:
 
 def resolve(typed: str) -> str:
     """The file system path of a typed record path: '~' expanded, a 'demo:' name to the shipped file."""
-    if typed.startswith(DEMO_PREFIX):
-        from fieldmode.calc.demo import demo_file
-
-        return str(demo_file(typed[len(DEMO_PREFIX):]))
-    return os.path.expanduser(typed)
+    try:
+        demo = demo_path(typed)
+    except LookupError as error:
+        raise RecordError(typed, str(error)) from error
+    return os.path.expanduser(typed) if demo is None else str(demo)
 
 
 def file_identity(typed: str) -> tuple[int, int, int, int] | None:
@@ -53,7 +52,7 @@ def file_identity(typed: str) -> tuple[int, int, int, int] | None:
         return None
     try:
         found = os.stat(resolve(typed))
-    except OSError:
+    except (OSError, RecordError):
         return None
     if not stat.S_ISREG(found.st_mode):
         return None
@@ -68,8 +67,6 @@ def read_source(typed: str, max_bytes: int) -> Source:
         data = _read_limited(sys.stdin.buffer.fileno(), typed, max_bytes)
         return Source(typed, data, hashlib.sha256(data).hexdigest(), None)
     path = resolve(typed)
-    if typed.startswith(DEMO_PREFIX) and not os.path.isfile(path):
-        raise RecordError(typed, "no shipped demo record of that name")
     try:
         found = os.stat(path)
     except FileNotFoundError as error:

@@ -500,3 +500,23 @@ def test_bad_input_exits_2_storeys_tmd_footfall(capsys: pytest.CaptureFixture[st
     code, out, err = run(capsys, *argv)
     assert code == 2 and out == ""
     assert len(err.strip().splitlines()) == 1 and "Traceback" not in err
+
+
+@pytest.mark.parametrize(("check", "name"), [("decay", HEEL_DROP), ("spectrum", GROUND_MOTION)])
+def test_json_names_the_file_read_by_its_demo_name_with_its_sha256(capsys: pytest.CaptureFixture[str],
+                                                                   check: str, name: str) -> None:
+    import hashlib
+
+    code, out, err = run(capsys, check, f"demo:{name}", "--json")
+    assert code == 0 and err == ""
+    content = demo_file(name).read_bytes()
+    # Oracle: hashlib.sha256 of the shipped file
+    assert json.loads(out)["files"] == [{"path": f"demo:{name}", "bytes": len(content),
+                                         "sha256": hashlib.sha256(content).hexdigest()}]
+    assert str(demo_file(name).parent) not in out
+
+
+def test_an_unknown_demo_name_is_one_line_and_status_2(capsys: pytest.CaptureFixture[str]) -> None:
+    code, out, err = run(capsys, "decay", "demo:floor.csv")
+    assert code == 2 and out == ""
+    assert err.count("\n") == 1 and "no demo record 'floor.csv'" in err and "demo:heel_drop_demo.csv" in err

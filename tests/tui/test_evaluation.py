@@ -69,3 +69,16 @@ def test_a_fault_in_a_check_becomes_a_problem_to_report():
     faulty = dataclasses.replace(sdof.SPEC, compute=broken)
     outcome = evaluate_guarded(faulty, faulty.demo_texts(), "si")
     assert outcome.result is None and "internal fault in sdof (RuntimeError: boom)" in outcome.problem
+
+
+def test_a_demo_name_reads_as_the_shipped_record_and_a_wrong_one_is_said():
+    from fieldmode.calc.checks import BY_ID
+    from fieldmode.calc.demo import HEEL_DROP, demo_file
+
+    decay = BY_ID["decay"]
+    outcome = evaluate(decay, decay.demo_texts(), "si")
+    assert outcome.notes["file"] == "shipped demo record"
+    assert outcome.result is not None and outcome.result.files[0].size == demo_file(HEEL_DROP).stat().st_size
+    wrong = evaluate(decay, {**decay.demo_texts(), "file": "demo:heel.csv"}, "si")
+    assert wrong.notes["file"] == "no such demo record"
+    assert "no demo record 'heel.csv'" in wrong.problem and "demo:heel_drop_demo.csv" in wrong.problem

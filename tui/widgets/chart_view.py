@@ -11,27 +11,7 @@ from textual.widgets import Static
 
 from fieldmode.calc.framework.result import Result
 from fieldmode.tui.charts import panels_of
-
-_BOX_TO_ASCII = str.maketrans({"─": "-", "━": "-", "│": "|", "┃": "|", "┌": "+", "┐": "+", "└": "+", "┘": "+",
-                               "├": "+", "┤": "+", "┬": "+", "┴": "+", "┼": "+", "•": "*", "·": "."})
-
-
-def ascii_only(text: str) -> str:
-    """Chart text for consoles without box or braille characters: lines to - | +, dots to . or *."""
-    text = text.translate(_BOX_TO_ASCII)
-    if text.isascii():
-        return text
-    out = []
-    for char in text:
-        code = ord(char)
-        if char.isascii():
-            out.append(char)
-        elif 0x2800 <= code <= 0x28FF:
-            dots = (code - 0x2800).bit_count()
-            out.append(" " if dots == 0 else "." if dots < 3 else "*")
-        else:
-            out.append("*")
-    return "".join(out)
+from fieldmode.tui.charts.plain import ascii_only
 
 
 def _safe_plot_class() -> type:

@@ -1,64 +1,102 @@
-"""Ask where to write the calc record, and of what: this check or the whole session."""
+"""Ask where to write the calc record, of what (this check or the whole session), and for which project."""
 
 from __future__ import annotations
 
 import os
-from collections.abc import Callable
+from collections.abc import Callable, Mapping
 from pathlib import Path
 
 from rich.text import Text
+from textual import events
 from textual.app import ComposeResult
 from textual.binding import Binding
-from textual.containers import Vertical
+from textual.containers import Horizontal, Vertical
+from textual.content import Content
 from textual.widgets import Input, RadioButton, RadioSet, Static
 
-from fieldmode.tui.calc_record import record_paths
+from fieldmode.tui.calc_record import MAX_PROJECT_TEXT, PROJECT_LABELS, record_paths
 from fieldmode.tui.widgets.confirm_screen import ConfirmScreen
 from fieldmode.tui.widgets.dialog import Dialog
 
 Writer = Callable[[Path, str], str]
 """write(path, scope) -> '' when written, else a one-line problem; scope is 'check' or 'session'."""
+Keeper = Callable[[str, str], None]
+"""keep(name, text): a project field was changed (the session keeps it)."""
+
+PATH_LABEL = "File (.md)"
 
 
 class ExportScreen(Dialog[str | None]):
-    """Path box and scope choice; Enter writes (asking before replacing), Escape cancels.
+    """Project fields, path box and scope choice; Enter writes (asking before replacing), Escape cancels.
 
-    Dismisses with a line saying what was written, or None when cancelled. A failed
-    write keeps the dialog open with the problem shown and the path as typed.
+    The project fields (project, job number, engineer, note) are handed to ``keep`` as they are
+    typed, so the session keeps them even when the record is cancelled. The file name has the
+    focus when the dialog opens; Tab and Shift+Tab move through every box. Dismisses with a line
+    saying what was written, or None when cancelled. A failed write keeps the dialog open with the
+    problem shown and the path as typed.
     """
 
     BINDINGS = [Binding("escape", "dismiss", "cancel", id="record.cancel")]
 
-    def __init__(self, names: dict[str, str], write: Writer) -> None:
+    def __init__(self, names: dict[str, str], write: Writer, project: Mapping[str, str] | None = None,
+                 keep: Keeper | None = None) -> None:
         super().__init__()
         self.names = names
         """Scope -> default file name."""
         self.write = write
+        self.project = dict(project or {})
+        self.keep = keep
         self.scope = "check"
 
     def compose(self) -> ComposeResult:
-        with Vertical(classes="dialog"):
-            yield Static(Text("Calc record: Markdown and JSON (Enter writes, Escape cancels)", style="bold"))
-            yield Static(Text("File (.md; a .json is written beside it):"))
-            yield Input(self.names["check"], id="record-path", compact=True)
-            with RadioSet(id="record-scope"):
-                yield RadioButton("this check", value=True, id="scope-check")
-                yield RadioButton("whole session", id="scope-session")
+        with Vertical(classes="dialog record"):
+            yield Static(Text("Calc record, Markdown and JSON: Enter writes, Escape cancels, Tab moves",
+                              style="bold"))
+            for name, label in PROJECT_LABELS.items():
+                with Horizontal(classes="record-row"):
+                    yield Static(_label(label, False), classes="record-label", id=f"label-{name}")
+                    yield Input(self.project.get(name, ""), id=f"project-{name}", compact=True,
+                                max_length=MAX_PROJECT_TEXT, select_on_focus=False)
+            yield Static(Text("  (typed once: the session keeps them for every record)"), classes="dialog-note")
+            with Horizontal(classes="record-row"):
+                yield Static(_label(PATH_LABEL, False), classes="record-label", id="label-path")
+                yield Input(self.names["check"], id="record-path", compact=True)
+            yield Static(Text("  a .json file with every value in SI is written beside it"), classes="dialog-note")
+            with RadioSet(id="record-scope", compact=True):
+                yield ScopeButton("this check", value=True, id="scope-check")
+                yield ScopeButton("whole session", id="scope-session")
             yield Static("", id="record-problem", markup=False)
 
     def on_mount(self) -> None:
-        self.query_one(Input).focus()
+        self.query_one("#record-path", Input).focus()
+
+    def on_descendant_focus(self, event: events.DescendantFocus) -> None:
+        self._mark(event.widget.id)
+
+    def on_descendant_blur(self) -> None:
+        self._mark(None)
+
+    def _mark(self, focused: str | None) -> None:
+        """'>' before the label of the box in focus, so the focus shows without colour."""
+        for name, label in (*PROJECT_LABELS.items(), ("path", PATH_LABEL)):
+            box = "record-path" if name == "path" else f"project-{name}"
+            self.query_one(f"#label-{name}", Static).update(_label(label, focused == box))
+
+    def on_input_changed(self, event: Input.Changed) -> None:
+        name = (event.input.id or "").removeprefix("project-")
+        if name in PROJECT_LABELS and self.keep is not None:
+            self.keep(name, event.value)
 
     def on_radio_set_changed(self, event: RadioSet.Changed) -> None:
         new_scope = "session" if event.pressed.id == "scope-session" else "check"
-        box = self.query_one(Input)
+        box = self.query_one("#record-path", Input)
         if box.value == self.names[self.scope]:
             box.value = self.names[new_scope]
         self.scope = new_scope
 
     def on_input_submitted(self, event: Input.Submitted) -> None:
         event.stop()
-        text = event.value.strip()
+        text = self.query_one("#record-path", Input).value.strip()
         if not text:
             self._problem("give a file name")
             return
@@ -81,3 +119,15 @@ class ExportScreen(Dialog[str | None]):
 
     def _problem(self, text: str) -> None:
         self.query_one("#record-problem", Static).update(Text("! " + text))
+
+
+def _label(label: str, focused: bool) -> Text:
+    return Text(("> " if focused else "  ") + label + ":", style="bold" if focused else "")
+
+
+class ScopeButton(RadioButton):
+    """A choice drawn '(*) this check' or '( ) whole session', with '>' at the cursor: no colour needed."""
+
+    def render(self) -> Content:
+        cursor = self.has_class("-selected") and isinstance(self.parent, RadioSet) and self.parent.has_focus
+        return Content(f"{'>' if cursor else ' '} {'(*)' if self.value else '( )'} {self.label}")

@@ -114,3 +114,24 @@ def test_any_text_in_the_decay_options_raises_only_input_error(name: str, text: 
     except InputError:
         return
     assert all_finite(result)
+
+
+def test_the_file_read_is_named_as_typed_with_its_sha256(tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> None:
+    import hashlib
+
+    monkeypatch.chdir(tmp_path)
+    (tmp_path / "bay 2").mkdir()
+    (tmp_path / "bay 2" / "drop.csv").write_bytes(demo_file(HEEL_DROP).read_bytes())
+    result = DECAY.evaluate({"file": "bay 2/drop.csv"})
+    content = (tmp_path / "bay 2" / "drop.csv").read_bytes()
+    # Oracle: hashlib.sha256 and len() of the file's bytes
+    assert [f.to_dict() for f in result.files] == [
+        {"path": "bay 2/drop.csv", "bytes": len(content), "sha256": hashlib.sha256(content).hexdigest()}]
+    assert result.to_dict()["files"] == [f.to_dict() for f in result.files]
+
+
+def test_the_demo_default_is_read_by_its_short_name() -> None:
+    result = DECAY.evaluate(DECAY.demo_texts())
+    assert DECAY.field("file").default == "demo:heel_drop_demo.csv"
+    assert result.files[0].path == "demo:heel_drop_demo.csv"
+    assert str(demo_file(HEEL_DROP).parent) not in str(result.to_dict())

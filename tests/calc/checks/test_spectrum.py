@@ -12,6 +12,7 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from fieldmode.calc.checks import BY_ID
+from fieldmode.calc.demo import GROUND_MOTION, demo_file, demo_path
 from fieldmode.calc.framework.result import SEISMIC_CAUTION
 from fieldmode.calc.framework.units import InputError
 from fieldmode.calc.physics import spectrum as core
@@ -60,7 +61,9 @@ def test_spectrum_check_matches_core(tmp_path: Path) -> None:
 
 def test_spectrum_demo_with_overlay() -> None:
     result = SPECTRUM.evaluate(SPECTRUM.demo_texts())
-    assert Path(SPECTRUM.field("file").default).is_file()
+    assert SPECTRUM.field("file").default == "demo:ground_motion_demo.csv"
+    assert demo_path(SPECTRUM.field("file").default) == demo_file(GROUND_MOTION)
+    assert demo_file(GROUND_MOTION).is_file()
     assert si(result, "pga") == pytest.approx(0.18 * G0, rel=0.01)
     # Source: EN 1998-1:2004 3.2.2.2, eq. 3.3, Table 3.2 ground C at 0.53 s
     assert si(result, "design_spectral_acceleration") == pytest.approx(0.16 * G0 * 1.15 * 2.5)
@@ -141,3 +144,14 @@ def test_default_grid_is_200_log_spaced_periods_from_20_ms_to_10_s() -> None:
     periods = SPECTRUM.evaluate(texts).series["period"]
     # Common practice (no source): the documented default grid, 200 log-spaced periods 0.02-10 s
     np.testing.assert_allclose(periods, np.geomspace(0.02, 10.0, 200), rtol=1e-12)
+
+
+def test_spectrum_names_the_file_it_read(tmp_path: Path) -> None:
+    import hashlib
+
+    path = write_record(tmp_path / "motion.csv", 0.05 * np.sin(np.arange(600) / 9.0), 0.01)
+    result = SPECTRUM.evaluate({"file": str(path), "signal_unit": "g"})
+    content = path.read_bytes()
+    # Oracle: hashlib.sha256 and len() of the file's bytes
+    assert result.to_dict()["files"] == [{"path": str(path), "bytes": len(content),
+                                          "sha256": hashlib.sha256(content).hexdigest()}]

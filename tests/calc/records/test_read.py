@@ -232,3 +232,38 @@ def test_any_file_content_gives_a_record_or_a_record_error(tmp_path_factory: pyt
     except InputError:
         return
     assert np.all(np.isfinite(record.signal)) and record.sample_rate > 0
+
+
+def test_size_and_sha256_are_those_of_the_file(tmp_path: Path) -> None:
+    import hashlib
+
+    path = write(tmp_path, "# bay 2\ntime,acc\n" + rows())
+    record = read_record(path)
+    content = path.read_bytes()
+    # Oracle: hashlib.sha256 and len() of the bytes on disk
+    assert record.source.sha256 == hashlib.sha256(content).hexdigest()
+    assert record.source.size == len(content)
+
+
+def test_demo_names_read_the_shipped_records() -> None:
+    import hashlib
+
+    from fieldmode.calc.demo import GROUND_MOTION, HEEL_DROP, demo_file
+
+    for name in (HEEL_DROP, GROUND_MOTION):
+        record = read_record(f"demo:{name}", signal_unit="g")
+        # Oracle: hashlib.sha256 of the installed file the short name stands for
+        assert record.source.sha256 == hashlib.sha256(demo_file(name).read_bytes()).hexdigest()
+
+
+@pytest.mark.parametrize("text", ["demo:nothing.csv", "demo:../demo/data/heel_drop_demo.csv", "demo:"])
+def test_unknown_demo_names_are_refused_by_name(text: str) -> None:
+    with pytest.raises(RecordError, match="no demo record") as caught:
+        read_record(text)
+    assert "demo:heel_drop_demo.csv" in str(caught.value)
+
+
+def test_a_local_file_named_like_a_demo_is_read_with_a_folder(tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> None:
+    monkeypatch.chdir(tmp_path)
+    write(tmp_path, rows(), "demo:mine.csv")
+    check_record(read_record("./demo:mine.csv"))

@@ -7,7 +7,7 @@ import json
 import math
 
 import pytest
-from helpers.pilot import go_to, keys_for, screen_text, settle, type_into
+from helpers.pilot import go_to, keys_for, note_of, screen_text, settle, type_into
 from helpers.specs import TWIN
 
 from fieldmode.calc.checks import sdof
@@ -126,3 +126,121 @@ def test_record_to_an_unwritable_path_says_so_and_keeps_everything(make_app, tmp
 
     asyncio.run(scenario())
     assert not (tmp_path / "work" / "no-such-folder").exists()
+
+
+PROJECT = {"project": "Lowmoor mezzanine", "job": "J-104", "engineer": "A. Nother", "note": "bay 2, heel drops"}
+
+
+async def _type_project(app, pilot):
+    """From the file name (where F9 puts the focus), Shift+Tab to the project boxes and type each one."""
+    await pilot.press("f9")
+    await pilot.pause()
+    assert app.focused is app.screen.query_one("#record-path")
+    await pilot.press(*["shift+tab"] * 4)
+    for text in PROJECT.values():
+        await pilot.press("home", "ctrl+k", *keys_for(text), "tab")
+    assert app.focused is app.screen.query_one("#record-path")
+    await pilot.press("escape")
+    await pilot.pause()
+
+
+def test_project_fields_typed_once_head_every_record_and_survive_a_restart(make_app, tmp_path, state):
+    async def first():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await _type_project(app, pilot)
+            assert app.workspace.project == PROJECT  # kept although the dialog was cancelled
+            await _export(app, pilot, "first")
+            await _export(app, pilot, "second")
+            await pilot.press("f10")
+
+    async def after_restart():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await pilot.press("f9")
+            await pilot.pause()
+            shown = {name: app.screen.query_one(f"#project-{name}").value for name in PROJECT}
+            assert shown == PROJECT
+            await pilot.press("escape")
+            await _export(app, pilot, "third")
+
+    asyncio.run(first())
+    asyncio.run(after_restart())
+    saved = json.loads((state / "session.json").read_text())
+    assert saved["project"] == PROJECT
+    for name in ("second", "third"):
+        markdown = (tmp_path / "work" / f"{name}.md").read_text()
+        assert markdown.startswith("# fieldmode calc record\n\n- Project: Lowmoor mezzanine\n- Job number: J-104\n"
+                                   "- Engineer: A. Nother\n- Note: bay 2, heel drops\n- Date: ")
+        assert json.loads((tmp_path / "work" / f"{name}.json").read_text())["project"] == PROJECT
+
+
+def test_project_boxes_are_marked_in_focus_without_colour(make_app):
+    async def scenario():
+        app = make_app(ascii_borders=True)
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await pilot.press("f9")
+            await pilot.pause()
+            text = screen_text(app)
+            assert "> File (.md):" in text and "  Project:" in text and "(*) this check" in text
+            await pilot.press("shift+tab", "shift+tab")
+            await pilot.pause()
+            text = screen_text(app)
+            assert "> Engineer:" in text and "  File (.md):" in text
+            await pilot.press("tab", "tab", "tab", "down", "enter")
+            await pilot.pause()
+            text = screen_text(app)
+            assert "( ) this check" in text and "> (*) whole session" in text
+            dialog = text.splitlines()[1:15]
+            assert all(line.isascii() for line in dialog), dialog  # no box, block or radio-dot characters
+
+    asyncio.run(scenario())
+
+
+def test_record_of_a_decay_names_the_file_as_typed_with_its_sha256(make_app, tmp_path):
+    import hashlib
+
+    from fieldmode.calc.demo import HEEL_DROP, demo_file
+
+    folder = tmp_path / "work" / "bay 2"
+    folder.mkdir()
+    (folder / "drop.csv").write_bytes(demo_file(HEEL_DROP).read_bytes())
+    content = (folder / "drop.csv").read_bytes()
+
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await go_to(app, pilot, "decay")
+            await type_into(app, pilot, "file", "bay 2/drop.csv")
+            await _export(app, pilot, "decay-bay2")
+            assert "Calc record written" in app.messages[-1]
+
+    asyncio.run(scenario())
+    # Oracle: hashlib.sha256 of the file's bytes
+    sha256 = hashlib.sha256(content).hexdigest()
+    markdown = (tmp_path / "work" / "decay-bay2.md").read_text()
+    assert f"| bay 2/drop.csv | {len(content)} | {sha256} |" in markdown
+    record = json.loads((tmp_path / "work" / "decay-bay2.json").read_text())
+    assert record["checks"][0]["files"] == [{"path": "bay 2/drop.csv", "bytes": len(content), "sha256": sha256}]
+
+
+def test_record_of_the_demo_decay_says_the_short_name_not_the_install_path(make_app, tmp_path):
+    from fieldmode.calc.demo import HEEL_DROP, demo_file
+
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            view = await settle(app, pilot)
+            view = await go_to(app, pilot, "decay")
+            assert "shipped demo record" in note_of(view, "file")
+            await _export(app, pilot, "demo-decay")
+
+    asyncio.run(scenario())
+    markdown = (tmp_path / "work" / "demo-decay.md").read_text()
+    assert "| demo:heel_drop_demo.csv |" in markdown
+    assert str(demo_file(HEEL_DROP).parent) not in markdown
+    assert str(demo_file(HEEL_DROP).parent) not in (tmp_path / "work" / "demo-decay.json").read_text()
