@@ -10,17 +10,21 @@ from __future__ import annotations
 import asyncio
 import gc
 import os
+import re
 import signal
-from collections.abc import Callable, Sequence
+import time
+from collections.abc import Callable, Mapping, Sequence
 from pathlib import Path
 from typing import TYPE_CHECKING
 
+from rich.text import Text
 from textual import work
 from textual.app import App, ComposeResult
 from textual.binding import Binding
 from textual.widgets import ContentSwitcher
 
 from fieldmode.calc.checks import SPECS
+from fieldmode.tui.printable import printable
 from fieldmode.tui.session import SessionStore, state_dir
 from fieldmode.tui.widgets.check_view import CheckView
 from fieldmode.tui.widgets.status import CautionLine, KeyBar, TopBar
@@ -80,24 +84,35 @@ class FieldmodeApp(App[int]):
         self._first_results_shown = False
         self.specs = tuple(specs if specs is not None else SPECS)
         self.store = SessionStore(state_folder if state_folder is not None else state_dir())
+        self._holder = self.store.owner.claim()
+        """Process id of another app that saves this session (this one is read-only until asked), or None."""
+        self.store.read_only = self._holder is not None
         loaded = self.store.load()
         self.startup_messages = loaded.messages + self.store.probe()
         self.workspace = Workspace(self.specs, loaded.data)
         self.views: dict[str, CheckView] = {}
         self.messages: list[str] = []
         """Every notice shown to the person, in order (tests read it)."""
-        self.ascii_borders = (os.environ.get("TERM") == "linux" or os.environ.get("FIELDMODE_ASCII") == "1"
-                              if ascii_borders is None else ascii_borders)
+        self.ascii_borders = ascii_terminal(os.environ) if ascii_borders is None else ascii_borders
+        """Draw borders and charts with ASCII characters (consoles that show box or braille characters badly)."""
         self.set_class(self.ascii_borders, "-ascii")  # before mounting: no second styling pass
         self._save_sequence = 0
         self._save_problem = ""
+        self._unsaved = False
+        """True when something changed since the session was last written."""
+        self._top = TopBar("", id="top")
+        self._caution = CautionLine("", id="caution")
+        self._keys = KeyBar("", id="keys")
+        """The lines around the check (kept: never looked up, so never missed while mounting)."""
+        self._switcher: ContentSwitcher | None = None
 
     def compose(self) -> ComposeResult:
-        yield TopBar("", id="top")
+        yield self._top
         current = self._new_view(self.workspace.current, compute_on_mount=False)
-        yield ContentSwitcher(current, initial=current.id, id="checks")
-        yield CautionLine("", id="caution")
-        yield KeyBar("", id="keys")
+        self._switcher = ContentSwitcher(current, initial=current.id, id="checks")
+        yield self._switcher
+        yield self._caution
+        yield self._keys
 
     def _new_view(self, check_id: str, compute_on_mount: bool = True) -> CheckView:
         view = CheckView(self.workspace.by_id[check_id], self.workspace, compute_on_mount)
@@ -105,7 +120,7 @@ class FieldmodeApp(App[int]):
         return view
 
     def on_mount(self) -> None:
-        self.query_one(KeyBar).show_keys([b for b in self.BINDINGS if isinstance(b, Binding)])
+        self._keys.show_keys([b for b in self.BINDINGS if isinstance(b, Binding)])
         self.current_view.focus_first()
         self._show_state()
         for message in self.startup_messages:
@@ -114,6 +129,26 @@ class FieldmodeApp(App[int]):
         for signum in (signal.SIGHUP, signal.SIGTERM):
             loop.add_signal_handler(signum, self._on_signal)
         self.call_after_refresh(self._first_frame)
+        if self._holder is not None:
+            from fieldmode.tui.widgets.owner_screen import OwnerScreen
+
+            self.push_screen(OwnerScreen(self._holder, str(self.store.folder)), self._owner_chosen)
+
+    def _owner_chosen(self, choice: str | None) -> None:
+        """Another app saves this session: read-only, take over, or quit (widgets/owner_screen.py)."""
+        from fieldmode.tui.widgets.owner_screen import READ_ONLY, TAKE_OVER
+
+        if choice == TAKE_OVER:
+            self.store.owner.take()
+            self.store.read_only = False
+            self.say(f"This window saves the session now; process {self._holder} stops saving it.")
+            self.save_soon()
+        elif choice == READ_ONLY:
+            self.say("Read-only: nothing typed here is saved. F9 writes a calc record.", warning=True, timeout=15)
+        else:
+            self.exit(0)
+            return
+        self._show_state()
 
     def _first_frame(self) -> None:
         """The fields are on screen: now load the core and compute, in the pane's worker."""
@@ -125,6 +160,24 @@ class FieldmodeApp(App[int]):
         loop = asyncio.get_running_loop()
         for signum in (signal.SIGHUP, signal.SIGTERM):
             loop.remove_signal_handler(signum)
+        self.store.owner.release()
+
+    def _handle_exception(self, error: Exception) -> None:
+        """A fault in the app (a bug): save the session, keep the details in a file, leave with status 1
+        and one line that says so with the version (Textual would print a long traceback)."""
+        import traceback
+
+        from fieldmode.calc import __version__
+
+        self.store.save(self.workspace.snapshot())
+        report = self.store.folder / f"fault-{time.strftime('%Y%m%d-%H%M%S')}.txt"
+        try:
+            report.write_text("".join(traceback.format_exception(error)), encoding="utf-8")
+            where = f"; details in {report}"
+        except OSError:
+            where = ""
+        self.exit(1, return_code=1, message=Text(f"fieldmode {__version__}: internal fault ({type(error).__name__}: "
+                                                 f"{error}); your inputs were saved{where}; please report it"))
 
     def _on_signal(self) -> None:
         """The link dropped or the process is asked to stop: save now, then leave cleanly."""
@@ -137,6 +190,7 @@ class FieldmodeApp(App[int]):
 
     def say(self, text: str, warning: bool = False, timeout: float = 6) -> None:
         """Tell the person something (a notice in the corner) and keep it in :attr:`messages`."""
+        text = printable(text, keep_newlines=True)
         self.messages.append(text)
         self.notify(text, title="warning" if warning else "done", severity="warning" if warning else "information",
                     timeout=timeout, markup=False)
@@ -148,9 +202,10 @@ class FieldmodeApp(App[int]):
         view = self.current_view
         index = next(i for i, spec in enumerate(self.specs) if spec.id == view.spec.id)
         shown = "results" if not view.view else f"chart {view.view}"
-        self.query_one(TopBar).show_state(index, len(self.specs), view.spec.id, view.spec.title,
-                                          self.workspace.system, shown, bool(self._save_problem))
-        self.query_one(CautionLine).show_caution(view.spec.caution)
+        saved = "READ-ONLY" if self.store.read_only else "NOT SAVED" if self._save_problem else ""
+        self._top.show_state(index, len(self.specs), view.spec.id, view.spec.title,
+                                          self.workspace.system, shown, saved)
+        self._caution.show_caution(view.spec.caution)
 
     # Changes and saving
 
@@ -173,6 +228,7 @@ class FieldmodeApp(App[int]):
 
     def save_soon(self) -> None:
         """Save the session in the background (after every change)."""
+        self._unsaved = True
         self._save_sequence += 1
         self._save(self.workspace.snapshot(), self._save_sequence)
 
@@ -182,6 +238,8 @@ class FieldmodeApp(App[int]):
         self.call_from_thread(self._saved, problem)
 
     def _saved(self, problem: str) -> None:
+        if not problem and self._save_sequence == self.store.written:
+            self._unsaved = False
         if problem and problem != self._save_problem:
             self.say(problem + ". Export a calc record (F9) to keep your inputs.", warning=True, timeout=15)
         changed = bool(problem) != bool(self._save_problem)
@@ -193,7 +251,8 @@ class FieldmodeApp(App[int]):
 
     async def show_check(self, check_id: str) -> None:
         """Put a check on screen (building its pane the first time) and focus its first field."""
-        switcher = self.query_one(ContentSwitcher)
+        switcher = self._switcher
+        assert switcher is not None  # made in compose, before any check can be shown
         view = self.views.get(check_id)
         if view is None:
             view = self._new_view(check_id)
@@ -249,8 +308,31 @@ class FieldmodeApp(App[int]):
             self.push_screen(HelpScreen(key_rows([b for b in self.BINDINGS if isinstance(b, Binding)])))
 
     def action_quit_saved(self) -> None:
-        self.store.save(self.workspace.snapshot())
-        self.exit(0)
+        """Save and quit; when the session cannot be saved and something changed, ask first."""
+        from fieldmode.tui.widgets.quit_screen import QuitScreen
+
+        if isinstance(self.screen, QuitScreen):  # F10 again in the question: quit without saving
+            self.exit(0)
+            return
+        snapshot = self.workspace.snapshot()
+        problem = self.store.save(snapshot)
+        if not problem or not self._unsaved:
+            self.exit(0)
+            return
+        suggested = f"~/fieldmode-session-{time.strftime('%Y-%m-%d-%H%M')}.json"
+        self.push_screen(QuitScreen(problem, suggested, lambda path: self._save_elsewhere(path, snapshot.to_json())),
+                         lambda quit_now: self.exit(0) if quit_now else None)
+
+    def _save_elsewhere(self, path: Path, text: str) -> str:
+        """Write the session to ``path`` (it can be copied to the state folder later); '' or the problem."""
+        from fieldmode.tui.files import describe_os_error, write_atomic
+
+        try:
+            write_atomic(path, text)
+        except OSError as error:
+            return describe_os_error(error, path)
+        self.say(f"Session written to {path}")
+        return ""
 
     # Lookups, sending, records
 
@@ -355,6 +437,19 @@ class FieldmodeApp(App[int]):
         except OSError as error:
             return describe_os_error(error, path) + "; nothing was lost, try another path"
         return ""
+
+
+ASCII_TERMINALS = ("linux", "dumb", "vt100", "vt102", "vt220", "ansi")
+"""Values of TERM whose consoles draw box and braille characters badly."""
+
+
+def ascii_terminal(environ: Mapping[str, str]) -> bool:
+    """True when the terminal should get ASCII drawing: asked for (FIELDMODE_ASCII=1), a console in
+    :data:`ASCII_TERMINALS`, or a locale that is not UTF-8 (LANG=C, for one)."""
+    if environ.get("FIELDMODE_ASCII") == "1" or environ.get("TERM", "") in ASCII_TERMINALS:
+        return True
+    locale = environ.get("LC_ALL") or environ.get("LC_CTYPE") or environ.get("LANG") or ""
+    return re.search(r"utf-?8", locale, re.IGNORECASE) is None
 
 
 def run_app(state_folder: Path | None = None, **options: object) -> int:

@@ -17,7 +17,7 @@ from typing import Any
 from fieldmode.calc import __version__
 from fieldmode.calc.framework.spec import CheckSpec
 from fieldmode.tui.evaluation import Outcome
-from fieldmode.tui.files import write_atomic
+from fieldmode.tui.files import write_all_atomic
 from fieldmode.tui.present import flag_text, si_text, typed_si_text, value_text
 
 
@@ -112,9 +112,10 @@ def as_json(entries: Sequence[Entry], when: time.struct_time) -> dict[str, Any]:
 
 
 def write_record(path: Path, entries: Sequence[Entry], system: str) -> tuple[Path, Path]:
-    """Write the Markdown and JSON files for ``path``; raise OSError if either cannot be written."""
+    """Write the Markdown and JSON files for ``path``, both or neither; raise OSError naming the file that
+    could not be written."""
     when = time.localtime()
     md_path, json_path = record_paths(path)
-    write_atomic(md_path, markdown(entries, system, when))
-    write_atomic(json_path, json.dumps(as_json(entries, when), indent=1, allow_nan=False, ensure_ascii=False) + "\n")
+    record = json.dumps(as_json(entries, when), indent=1, allow_nan=False, ensure_ascii=False) + "\n"
+    write_all_atomic({md_path: markdown(entries, system, when), json_path: record})
     return md_path, json_path

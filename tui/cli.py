@@ -16,6 +16,7 @@ from collections.abc import Sequence
 from typing import TYPE_CHECKING, NoReturn
 
 from fieldmode.calc import __version__
+from fieldmode.tui.printable import printable
 
 if TYPE_CHECKING:
     from fieldmode.calc.framework.result import Result
@@ -145,8 +146,8 @@ def render_text(spec: CheckSpec, result: Result, system: str = "si") -> str:
 
     lines = [f"{spec.title} ({spec.id})", "", "Inputs"]
     for name, typed in result.inputs.items():
-        note = f"   [{typed.note}]" if typed.note else ""
-        lines.append(f"  {spec.field(name).label:<30}{typed.text}{note}")
+        note = f"   [{printable(typed.note)}]" if typed.note else ""
+        lines.append(f"  {spec.field(name).label:<30}{printable(typed.text)}{note}")
     lines += ["", "Results"]
     width = max((len(value.label) for value in result.values.values()), default=0) + 2
     for value in result.values.values():
@@ -197,13 +198,13 @@ def _failed(error: Exception) -> int:
     from fieldmode.tui.curves import CurvesError
 
     if isinstance(error, InputError | CurvesError):
-        print(f"fieldmode: {error}", file=sys.stderr)
+        print(f"fieldmode: {printable(str(error))}", file=sys.stderr)
         return EXIT_INPUT
     if isinstance(error, OSError):
-        print(f"fieldmode: {error.strerror or error}: {error.filename or ''}".rstrip(": "), file=sys.stderr)
+        print(printable(f"fieldmode: {error.strerror or error}: {error.filename or ''}".rstrip(": ")), file=sys.stderr)
         return EXIT_INPUT
-    print(f"fieldmode {__version__}: internal fault ({type(error).__name__}: {error}); "
-          "please report it with the command you ran", file=sys.stderr)
+    print(printable(f"fieldmode {__version__}: internal fault ({type(error).__name__}: {error}); "
+                    "please report it with the command you ran"), file=sys.stderr)
     return EXIT_FAULT
 
 

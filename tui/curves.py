@@ -19,6 +19,7 @@ from pathlib import Path
 from typing import TYPE_CHECKING
 
 from fieldmode.tui.files import describe_os_error, write_atomic
+from fieldmode.tui.printable import printable
 
 if TYPE_CHECKING:
     from fieldmode.calc.framework.result import Result
@@ -87,7 +88,7 @@ def write_curves(spec: CheckSpec, result: Result, target: str) -> None:
     text = csv_text(spec, result)
     if not text:
         where = "" if target == STDOUT else f" to {target}"
-        print(f"fieldmode: {spec.id} makes no curves: nothing written{where}", file=sys.stderr)
+        print(printable(f"fieldmode: {spec.id} makes no curves: nothing written{where}"), file=sys.stderr)
         return
     if target == STDOUT:
         sys.stdout.write(text)

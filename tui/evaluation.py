@@ -96,4 +96,12 @@ def _file_note(path: str) -> str:
         return f"not found ({error.strerror})" if error.strerror else "not found"
     if os.path.isdir(os.path.expanduser(path)):
         return "a folder, not a file"
-    return f"file, {size / 1024:.1f} kB"
+    return f"file, {_size_text(size)}"
+
+
+def _size_text(size: int) -> str:
+    """A file size for people: '812 bytes', '39.6 kB', '249.0 MB'."""
+    for unit, scale in (("GB", 1e9), ("MB", 1e6), ("kB", 1e3)):
+        if size >= scale:
+            return f"{size / scale:.1f} {unit}"
+    return f"{size} bytes"

@@ -19,6 +19,7 @@ from fieldmode.calc.framework.units import (
     unit_factor,
     unit_name,
 )
+from fieldmode.tui.printable import printable
 
 LEVEL_MARKS: dict[str, str] = {"info": "i", "caution": "!", "warning": "!!"}
 """A symbol per flag level, so meaning never rests on colour alone."""
@@ -35,7 +36,7 @@ def value_lines(value: Value, system: str, most: int | None = None) -> list[str]
     count is added ('0.57, 0.23 ... (12)').
     """
     if isinstance(value.magnitude, str):
-        return [value.magnitude]
+        return [printable(value.magnitude)]
     magnitude = np.asarray(value.magnitude, dtype=float)
     if magnitude.ndim == 1 and most is not None and magnitude.size > most:
         return [format_value(magnitude[:most], value.kind, system) + f" ... ({magnitude.size})"]
@@ -103,13 +104,13 @@ def flag_heading(level: str) -> str:
 
 def flag_text(flag: Flag) -> str:
     """A flag on one line: mark, level word, text ('!  caution: ...')."""
-    return f"{flag_heading(flag.level)}: {flag.text}"
+    return f"{flag_heading(flag.level)}: {printable(flag.text)}"
 
 
 def reading_text(reading: Reading | tuple[Reading, ...] | str, system: str) -> str:
     """How a field's text was read, e.g. '= 24.17 Hz' or 'read as weight: m = W/g0 = 12.00 t'."""
     if isinstance(reading, str):
-        return f"= {reading}"
+        return f"= {printable(reading)}"
     if isinstance(reading, tuple):
         items = [format_value(r.si, r.kind, system) for r in reading]
         if len(items) > MOST_READINGS:

@@ -18,6 +18,7 @@ from pathlib import Path
 from typing import Any
 
 from fieldmode.tui.files import describe_os_error, write_atomic
+from fieldmode.tui.session_lock import SessionLock
 
 FORMAT = "fieldmode-session"
 VERSION = 2
@@ -27,6 +28,8 @@ PROJECT_FIELDS = ("project", "job", "engineer", "note")
 """What the calc record says about the work, typed once per session."""
 MAX_SESSION_BYTES = 2_000_000
 """A session file larger than this is not read (it cannot be one we wrote)."""
+MAX_TEXT = 4096
+"""Longest text of one field in a session file (a field takes no more)."""
 
 
 def state_dir(environ: Mapping[str, str] | None = None) -> Path:
@@ -73,9 +76,9 @@ def parse_session(text: str) -> SessionData:
         raise SessionFormatError("not a fieldmode session file")
     checks = data.get("checks")
     if not isinstance(checks, dict) or not all(
-            isinstance(fields, dict) and all(isinstance(k, str) and isinstance(v, str) for k, v in fields.items())
+            isinstance(fields, dict) and all(_short_text(k) and _short_text(v) for k, v in fields.items())
             for fields in checks.values()):
-        raise SessionFormatError("the checks in the session file are not texts")
+        raise SessionFormatError("the checks in the session file are not texts a field can hold")
     system = str(data["system"]) if data.get("system") in ("si", "us") else "si"
     current = data["current"] if isinstance(data.get("current"), str) else ""
     own = data.get("own", {})
@@ -84,11 +87,15 @@ def parse_session(text: str) -> SessionData:
         raise SessionFormatError("the own-value list in the session file is not names")
     shared, project = data.get("shared", {}), data.get("project", {})
     for name, table in (("shared values", shared), ("project fields", project)):
-        if not isinstance(table, dict) or not all(isinstance(k, str) and isinstance(v, str) for k, v in table.items()):
+        if not isinstance(table, dict) or not all(_short_text(k) and _short_text(v) for k, v in table.items()):
             raise SessionFormatError(f"the {name} in the session file are not texts")
     return SessionData({str(k): dict(v) for k, v in checks.items()}, system, current,
                        {str(k): list(v) for k, v in own.items()}, dict(shared),
                        {k: v for k, v in project.items() if k in PROJECT_FIELDS})
+
+
+def _short_text(value: object) -> bool:
+    return isinstance(value, str) and len(value) <= MAX_TEXT
 
 
 @dataclass
@@ -105,8 +112,13 @@ class SessionStore:
     def __init__(self, folder: Path) -> None:
         self.folder = folder
         self.path = folder / "session.json"
+        self.owner = SessionLock(folder)
+        """Which app process saves this session (one writer per session)."""
+        self.read_only = False
+        """True when another app saves this session and this one only shows it."""
         self._lock = threading.Lock()
-        self._written = -1
+        self.written = -1
+        """Sequence number of the last snapshot written (or skipped as older)."""
         self.last_error: str = ""
         """The last write problem, or '' after a good save."""
 
@@ -118,6 +130,8 @@ class SessionStore:
             if self.path.stat().st_size > MAX_SESSION_BYTES:
                 raise SessionFormatError("the file is too large to be a session")
             return LoadOutcome(parse_session(self.path.read_text(encoding="utf-8")))
+        except RecursionError:  # nested deeper than the JSON reader goes: not a file we wrote
+            return LoadOutcome(None, [self._move_aside("nested too deep to be a session")])
         except (OSError, ValueError) as error:
             reason = error.strerror if isinstance(error, OSError) and error.strerror else str(error)
             return LoadOutcome(None, [self._move_aside(reason)])
@@ -149,12 +163,16 @@ class SessionStore:
         With ``sequence``, a snapshot older than one already written is skipped, so
         saves from several threads never put an older session over a newer one.
         """
+        if self.read_only:
+            return "Session not saved: opened read-only, another fieldmode window saves it"
+        if not self.owner.held():
+            return "Session not saved: another fieldmode window took this session over"
         text = data.to_json()
         with self._lock:
             if sequence is not None:
-                if sequence < self._written:
+                if sequence < self.written:
                     return self.last_error
-                self._written = sequence
+                self.written = sequence
             try:
                 self.folder.mkdir(parents=True, exist_ok=True)
                 write_atomic(self.path, text)

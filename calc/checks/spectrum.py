@@ -23,6 +23,8 @@ MIN_STEP, MAX_STEP = 1e-5, 1.0
 """Time steps accepted for an accelerogram (s)."""
 MAX_ACCELERATION = 1e4
 """Largest ground acceleration accepted (m/s^2); more means a wrong unit."""
+NO_MOTION = 1e-9
+"""A record whose baseline-corrected peak is below this fraction of its raw peak holds no ground motion."""
 if TYPE_CHECKING:
     from fieldmode.calc.framework.reading import Inputs
     from fieldmode.calc.physics.spectrum import Spectrum
@@ -75,6 +77,9 @@ def compute(inputs: Inputs) -> Result:
     periods = _periods(inputs)
     marked = inputs.optional("period", None, minimum=MIN_PERIOD, maximum=MAX_PERIOD)
     corrected = accelerogram.baseline_corrected(acc, dt)
+    if np.max(np.abs(corrected)) <= NO_MOTION * np.max(np.abs(acc), initial=0.0) or not np.any(corrected):
+        raise inputs.error("file", "no ground motion: the record is constant (or zero) once its baseline is "
+                                   "removed; check the signal column")
     try:
         spectrum = core.response_spectrum(corrected, dt, periods, zeta)
         single = core.response_spectrum(corrected, dt, np.array([marked]), zeta) if marked else None
@@ -190,9 +195,7 @@ def _flags(spectrum: Spectrum, dt: float, duration: float, acc: np.ndarray, corr
         flags.append(Flag("info", f"periods below 2 dt = {2 * dt:.3g} s respond to the record as sampled "
                                   "(linear between samples)"))
     drift = float(np.max(np.abs(acc - corrected)))
-    if pga == 0.0:
-        flags.append(Flag("warning", "the record is all zero after baseline correction"))
-    elif drift > 0.01 * pga:
+    if drift > 0.01 * pga:
         flags.append(Flag("caution", f"baseline removed: up to {drift / pga:.1%} of the peak acceleration"))
     return flags
 

@@ -34,7 +34,8 @@ FIELDS = (
     Field("mass_ratio", "Mass ratio", "ratio", "2 %", "", group="size",
           help="damper mass / modal mass, 0.1 % to 50 %"),
     Field("target_damping", "Target equivalent damping", "ratio", "", "", group="size",
-          help="damping of a single mass with the same resonant peak; solves for the mass ratio"),
+          help="damping of a single mass with the same resonant peak; solves for the mass ratio",
+          meaning=Meaning("damping ratio needed", STRUCTURE)),
     Field("excitation", "Excitation", "choice", "force", choices=EXCITATIONS, required=False,
           help="force (default): harmonic force on the structure (Den Hartog); ground: harmonic ground acceleration "
                "(Warburton)"),

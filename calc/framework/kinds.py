@@ -26,6 +26,13 @@ class Kind:
     names: dict[str, str] = field(default_factory=dict)
 
 
+MAX_QUANTITY_TEXT = 60
+"""Longest text accepted in a field of one quantity (characters)."""
+MAX_LIST_TEXT = 2000
+"""Longest text accepted in a list field or a free-text field (characters)."""
+MAX_PATH_TEXT = 4096
+"""Longest file path accepted (characters)."""
+
 FORCE = "[mass]*[length]/[time]**2"
 PRESSURE = "[mass]/[length]/[time]**2"
 
@@ -71,6 +78,8 @@ KINDS: dict[str, Kind] = {k.name: k for k in (
           "'450 kg/m' or a weight '4.4 kN/m'", weight_of=f"{FORCE}/[length]"),
     _kind("mass_per_area", "mass per area", "[mass]/[length]^2", "kg/m^2", ("kg/m^2",), ("lb/ft^2",),
           "'350 kg/m^2' or a weight '3.5 kPa'", weight_of=PRESSURE),
+    _kind("crowd_density", "crowd density (pedestrians per area)", "1/[length]^2", "1/m^2", ("1/m^2",),
+          ("1/ft^2",), "'0.5' (pedestrians per m^2) or '0.05 1/ft^2'"),
     _kind("unbalance", "unbalance (mass x eccentricity)", "[mass]*[length]", "kg*m", ("kg*m", "kg*mm"),
           ("lb*in", "oz*in"), "'0.5 kg m' or '120 g mm'"),
 )}

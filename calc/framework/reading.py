@@ -12,13 +12,11 @@ from collections.abc import Mapping
 
 import numpy as np
 
-from fieldmode.calc.framework.kinds import KINDS
+from fieldmode.calc.framework.kinds import KINDS, MAX_LIST_TEXT, MAX_PATH_TEXT
 from fieldmode.calc.framework.result import Flag, Reference, Result, TypedInput, Value
 from fieldmode.calc.framework.spec import SIGNAL, CheckSpec, Field
 from fieldmode.calc.framework.units import InputError, Reading, read
 
-MAX_LIST_TEXT = 2000
-"""Longest text accepted in a list field (characters)."""
 MAX_LIST_ITEMS = 200
 """Most items accepted in a list field."""
 _BARE_NUMBER = re.compile(r"^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$")
@@ -75,7 +73,7 @@ def read_field(spec_field: Field, text: str) -> Reading | tuple[Reading, ...] | 
     if spec_field.kind == "choice":
         return _read_choice(spec_field, text)
     if spec_field.kind == "path":
-        if len(text) > 4096 or "\0" in text:
+        if len(text) > MAX_PATH_TEXT or "\0" in text:
             raise InputError(spec_field.label, text, "not a usable path", "'decay.csv'")
         return text
     if spec_field.kind == "text":

@@ -15,7 +15,7 @@ from collections.abc import Callable, Mapping
 from dataclasses import dataclass
 from typing import TYPE_CHECKING
 
-from fieldmode.calc.framework.kinds import KINDS
+from fieldmode.calc.framework.kinds import KINDS, MAX_LIST_TEXT, MAX_PATH_TEXT, MAX_QUANTITY_TEXT
 from fieldmode.calc.framework.meaning import Meaning
 from fieldmode.calc.framework.result import CAUTION
 
@@ -57,6 +57,13 @@ class Field:
     def option(self) -> str:
         """Command-line option, e.g. '--static-deflection'."""
         return "--" + self.name.replace("_", "-")
+
+    @property
+    def max_length(self) -> int:
+        """Most characters the field takes: a quantity's text is short, a list or a path longer."""
+        if self.kind == "path":
+            return MAX_PATH_TEXT
+        return MAX_LIST_TEXT if self.many or self.kind == "text" else MAX_QUANTITY_TEXT
 
     @property
     def label_with_unit(self) -> str:

@@ -17,7 +17,7 @@ from dataclasses import dataclass
 import numpy as np
 import pint
 
-from fieldmode.calc.framework.kinds import KINDS, Kind
+from fieldmode.calc.framework.kinds import KINDS, MAX_QUANTITY_TEXT, Kind
 from fieldmode.calc.physics.constants import STANDARD_GRAVITY
 
 ureg: pint.UnitRegistry
@@ -28,7 +28,7 @@ except OSError:  # no writable cache folder: build the registry in memory
 Q_ = ureg.Quantity
 Quantity = pint.Quantity
 
-MAX_TEXT = 60
+MAX_TEXT = MAX_QUANTITY_TEXT
 """Longest text accepted in one field (characters)."""
 
 MAX_MAGNITUDE = 1e15

@@ -290,9 +290,20 @@ def _check_low_frequency(frequency: float, guide: str, cutoff: float | None) -> 
     return limit
 
 
+def check_band(band: tuple[float, float]) -> tuple[float, float]:
+    """Refuse a pacing-rate band (Hz) that is not 0 < low <= high, finite."""
+    low, high = band
+    check_positive("slowest pacing rate", low)
+    check_positive("fastest pacing rate", high)
+    if high < low:
+        raise ValueError(f"fastest pacing rate {high:g} Hz is below the slowest {low:g} Hz")
+    return low, high
+
+
 def resonant_response(frequency: float, damping: float, modal_mass: float, *, path_length: float | None = None,
                       crossing: bool = False, weight: float = PERSON_WEIGHT, mode_factor: float = 1.0,
-                      guide: str = SCI_P354, cutoff: float | None = None, stride: float = STRIDE) -> WalkingResponse:
+                      guide: str = SCI_P354, cutoff: float | None = None, stride: float = STRIDE,
+                      band: tuple[float, float] = footfall.WALKING) -> WalkingResponse:
     """Resonant response of a low-frequency floor mode (frequency Hz, modal mass kg) to one walker.
 
     ``path_length`` (m) limits the build-up to the cycles of the mode while the walker covers it (None: the
@@ -303,14 +314,17 @@ def resonant_response(frequency: float, damping: float, modal_mass: float, *, pa
     harmonic and pacing rate of the largest peak are kept. The overshoot of a detuned start (beats) is not
     counted. ``mode_factor`` is the product of the mode's amplitudes at the walker and at the receiver (1 at
     the antinode; with ``crossing``, the receiver's alone). ``cutoff`` (Hz) defaults to the guide's
-    (:data:`CUTOFF_HZ`). The r.m.s. is that of a sinusoid at the peak amplitude.
+    (:data:`CUTOFF_HZ`). ``band`` (Hz) is the range of pacing rates walkers may choose (default
+    :data:`footfall.WALKING`); a band of one rate, (fp, fp), gives the response to walking at fp. The r.m.s. is
+    that of a sinusoid at the peak amplitude.
     """
     _check_low_frequency(frequency, guide, cutoff)
+    check_band(band)
     check_damping(damping)
     check_positive("modal mass", modal_mass)
     check_positive("walker's weight", weight)
     best: tuple[int, float, float, float, float] | None = None
-    for harmonic, pacing in _pacing_rates(frequency, footfall.WALKING):
+    for harmonic, pacing in _pacing_rates(frequency, band):
         force = dynamic_load_factor(harmonic, pacing, guide) * weight * mode_factor
         steady = steady_acceleration(force, frequency, damping, modal_mass, harmonic * pacing)
         peak = steady
@@ -325,6 +339,42 @@ def resonant_response(frequency: float, damping: float, modal_mass: float, *, pa
     rms = peak / math.sqrt(2.0)
     factor = float(base_curves.response_factor(rms, frequency, "vertical"))
     return WalkingResponse(harmonic, pacing, force, steady, peak / steady if steady > 0 else 1.0, peak, rms, factor)
+
+
+def resonant_response_factors(frequencies: np.ndarray, damping: float, modal_mass: float, *,
+                              path_length: float | None = None, crossing: bool = False,
+                              weight: float = PERSON_WEIGHT, mode_factor: float = 1.0, guide: str = SCI_P354,
+                              cutoff: float | None = None, stride: float = STRIDE,
+                              band: tuple[float, float] = footfall.WALKING) -> np.ndarray:
+    """Response factors of :func:`resonant_response` (same options) for modes of many ``frequencies`` (Hz) at
+    once: the same harmonics, pacing rates, build-up and base curve, evaluated on arrays."""
+    f = np.asarray(frequencies, dtype=float)
+    for value in np.ravel(f):
+        _check_low_frequency(float(value), guide, cutoff)
+    check_damping(damping)
+    check_positive("modal mass", modal_mass)
+    check_positive("walker's weight", weight)
+    low, high = check_band(band)
+    best = np.zeros_like(f)
+    for harmonic in range(1, HARMONICS + 1):
+        pacing = np.clip(f / harmonic, low, high)
+        if guide == AISC_DG11:
+            alpha = np.full_like(f, _DG11_DLF[harmonic - 1])
+        else:
+            a, b = _P354_DLF[harmonic - 1]
+            alpha = a * (harmonic * pacing + b)
+        force = alpha * weight * mode_factor
+        ratio = harmonic * pacing / f
+        peak = force / modal_mass * ratio**2 / np.hypot(1.0 - ratio**2, 2.0 * damping * ratio)
+        if path_length is not None:
+            check_positive("path length", path_length)
+            check_positive("stride", stride)
+            cycles = f * path_length / (stride * pacing)
+            share = (np.vectorize(crossing_factor)(damping, cycles) if crossing
+                     else -np.expm1(-2.0 * np.pi * damping * cycles))
+            peak = np.minimum(peak, share * force / (2.0 * damping * modal_mass))
+        best = np.maximum(best, peak)
+    return np.asarray(base_curves.response_factor(best / math.sqrt(2.0), f, "vertical"))
 
 
 def resonant_damping_for_limit(response_factor: float, frequency: float, modal_mass: float,
@@ -371,7 +421,7 @@ def resonant_frequency_for_limit(response_factor: float, damping: float, modal_m
         return resonant_response(f, damping, modal_mass, **options).response_factor / response_factor - 1.0
 
     grid = np.linspace(LOWEST_FLOOR_HZ, top, 1201)[:-1]
-    over = np.array([excess(f) > 0.0 for f in grid])
+    over = resonant_response_factors(grid, damping, modal_mass, **options) > response_factor
     if over[-1]:
         return None
     if not over.any():

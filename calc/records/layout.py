@@ -1,19 +1,20 @@
 """Finding the layout of a text record: encoding, separator, decimal mark, header and first data line.
 
-Used by :mod:`calc.records`; only the first :data:`HEAD_BYTES` of the file are looked at.
+Used by :mod:`fieldmode.calc.records.read`; only the first :data:`HEAD_BYTES` of the record are looked at.
 """
 
 from __future__ import annotations
 
 import re
 from dataclasses import dataclass
-from pathlib import Path
 
 from fieldmode.calc.framework.units import InputError
 
 HEAD_BYTES = 65536
-"""Bytes read to find the layout."""
-MAX_HEADER_LINES = 200
+"""Bytes looked at to find the layout."""
+LONGEST_HEAD = 4 * 1024 * 1024
+"""Bytes looked at, at most, when the header and comments fill the first :data:`HEAD_BYTES`."""
+MAX_HEADER_LINES = 2000
 """Most lines of header and comments before the data."""
 RUN_LINES = 3
 """The data start at the first run of this many numeric lines of one layout."""
@@ -41,7 +42,6 @@ class RecordError(InputError):
 class Layout:
     """How the data of a record file are laid out."""
 
-    path: Path
     shown: str
     encoding: str
     delimiter: str | None
@@ -68,14 +68,24 @@ def cells_of(line: str, delimiter: str | None, comments: tuple[str, ...] = COMME
     return [cell.strip().strip('"').strip() for cell in line.split(delimiter)]
 
 
-def sniff(path: Path, shown: str, max_bytes: int) -> Layout:
-    """Check that ``path`` is a readable text file of numbers and find its layout."""
-    head, size = _head(path, shown, max_bytes)
-    text, encoding = _decode(head, size, shown)
-    lines = text.splitlines()
-    if size > len(head) and lines:
-        lines = lines[:-1]
-    start, delimiter, width = _data_start(lines, shown)
+def sniff(data: bytes, shown: str) -> Layout:
+    """Check that ``data`` (a whole record, UTF-8 or Latin-1) is text of numbers and find its layout."""
+    if not data[:HEAD_BYTES].strip():
+        raise RecordError(shown, "the file is empty")
+    size = HEAD_BYTES
+    while True:  # a header or comment block longer than the head: look further, up to LONGEST_HEAD
+        head = data[:size]
+        text, encoding = _decode(head, len(data), shown)
+        lines = text.splitlines()
+        if len(data) > len(head) and lines:
+            lines = lines[:-1]
+        found = _data_start(lines)
+        if found is not None or len(head) == len(data) or size >= LONGEST_HEAD:
+            break
+        size *= 4
+    if found is None:
+        raise RecordError(shown, _no_data(lines))
+    start, delimiter, width = found
     header = [line for line in lines[:start] if cells_of(line, delimiter)]
     names = _names(header[-1] if header else "", delimiter, width)
     sample = [c for line in lines[start:start + 50] for c in cells_of(line, delimiter)]
@@ -86,34 +96,11 @@ def sniff(path: Path, shown: str, max_bytes: int) -> Layout:
     notes = ["decimal commas read as points"] if decimal_comma else []
     if encoding != "utf-8-sig":
         notes.append("file is not UTF-8: read as Latin-1")
-    return Layout(path, shown, encoding, delimiter, decimal_comma, quoted, comments, start + 1, width, names,
-                  tuple(notes))
-
-
-def _head(path: Path, shown: str, max_bytes: int) -> tuple[bytes, int]:
-    """The first bytes of the file and its size, with clear errors for unusable paths."""
-    try:
-        if path.is_dir():
-            raise RecordError(shown, "is a folder, not a file")
-        size = path.stat().st_size
-        if size > max_bytes:
-            raise RecordError(shown, f"{size / 2**20:.0f} MiB is larger than the {max_bytes / 2**20:.0f} MiB "
-                              "limit; shorten the record")
-        with open(path, "rb") as handle:
-            head = handle.read(HEAD_BYTES)
-    except FileNotFoundError as error:
-        raise RecordError(shown, "no such file") from error
-    except PermissionError as error:
-        raise RecordError(shown, "cannot be read (permission denied)") from error
-    except OSError as error:
-        raise RecordError(shown, f"cannot be read ({error.strerror or error})") from error
-    if not head.strip():
-        raise RecordError(shown, "the file is empty")
-    return head, size
+    return Layout(shown, encoding, delimiter, decimal_comma, quoted, comments, start + 1, width, names, tuple(notes))
 
 
 def _decode(head: bytes, size: int, shown: str) -> tuple[str, str]:
-    """Text of the head and the encoding to read the file with; binary content is refused."""
+    """Text of the head and the encoding to read the record with; binary content is refused."""
     control = _CONTROL.search(head)
     if control is not None:
         raise RecordError(shown, f"binary content at byte {control.start()}: not a text record "
@@ -135,8 +122,18 @@ def _layout_of(line: str) -> tuple[str | None, int] | None:
     return best
 
 
-def _data_start(lines: list[str], shown: str) -> tuple[int, str | None, int]:
-    """Index of the first data line, its separator and its number of cells."""
+def _no_data(lines: list[str]) -> str:
+    """Why no rows of numbers were found in ``lines``, the start of a record."""
+    content = [line for line in lines if cells_of(line, None)]
+    if len(lines) >= MAX_HEADER_LINES and not any(_layout_of(line) for line in lines[:MAX_HEADER_LINES]):
+        return f"no rows of numbers in the first {MAX_HEADER_LINES} lines: remove header or comment lines"
+    if not content:
+        return "only comments or blank lines near the start: no rows of numbers"
+    return "no rows of numbers found near the start of the file"
+
+
+def _data_start(lines: list[str]) -> tuple[int, str | None, int] | None:
+    """Index of the first data line, its separator and its number of cells (None: no data found)."""
     run: list[tuple[int, tuple[str | None, int]]] = []
     for index, line in enumerate(lines):
         if not cells_of(line, None):
@@ -151,7 +148,7 @@ def _data_start(lines: list[str], shown: str) -> tuple[int, str | None, int]:
         if len(run) == RUN_LINES:
             break
     if not run or (len(run) < RUN_LINES and run[-1][0] != _last_content(lines)):
-        raise RecordError(shown, "no rows of numbers found near the start of the file")
+        return None
     start, (delimiter, width) = run[0]
     for index in range(start - 1, -1, -1):
         cells = cells_of(lines[index], delimiter)
@@ -170,6 +167,14 @@ def _last_content(lines: list[str]) -> int:
 def _names(line: str, delimiter: str | None, width: int) -> tuple[str, ...]:
     """Column names from the last header line if it has one per column, else '1', '2', ..."""
     cells = cells_of(line, delimiter) if line else []
+    if delimiter is None and len(cells) > width:  # blanks separate: 'Time (ms) acc [g]' is two names
+        merged: list[str] = []
+        for cell in cells:
+            if merged and cell[:1] in "([":
+                merged[-1] += " " + cell
+            else:
+                merged.append(cell)
+        cells = merged
     if len(cells) == width and all(cells):
         return tuple(cells)
     return tuple(str(i + 1) for i in range(width))

@@ -24,7 +24,9 @@ class Terminal:
 
     def __init__(self, state: Path, extra_env: dict[str, str] | None = None) -> None:
         env = {k: v for k, v in os.environ.items() if not k.startswith(("TEXTUAL", "NO_COLOR"))}
-        env.update({"XDG_STATE_HOME": str(state), "TERM": "xterm-256color", "COLUMNS": "80", "LINES": "24"})
+        env = {k: v for k, v in env.items() if k not in ("LC_ALL", "LC_CTYPE")}
+        env.update({"XDG_STATE_HOME": str(state), "TERM": "xterm-256color", "LANG": "C.UTF-8", "COLUMNS": "80",
+                    "LINES": "24"})
         env.update(extra_env or {})
         self.screen = pyte.Screen(80, 24)
         self.stream = pyte.ByteStream(self.screen)
@@ -86,7 +88,7 @@ def test_typed_value_survives_a_hangup_and_comes_back(state):
     assert "Traceback" not in first.text()
     assert status == 0
     saved = json.loads((state / "fieldmode" / "session.json").read_text())
-    assert saved["checks"]["sdof"]["mass"] == "7.5 t"
+    assert saved["shared"]["structure: mass"] == "7.5 t"  # the structure's mass, kept once for sdof and forced
 
     second = Terminal(state)
     shown = second.wait_for("= 7.500 t")
@@ -105,3 +107,28 @@ def test_bad_input_on_a_plain_console_without_colour(state):
     assert "No result" in shown and "Traceback" not in shown
     term.keys("\x1b[21~")
     assert term.finish() == 0
+
+
+@pytest.mark.skipif(not FIELDMODE.exists(), reason="the console script is not installed")
+def test_two_windows_on_one_session_never_overwrite_each_other(tmp_path: Path) -> None:
+    state = tmp_path / "state"
+    first = Terminal(state)
+    try:
+        first.wait_for("Natural frequency")
+        second = Terminal(state)
+        try:
+            second.wait_for("open in another fieldmode window")
+            second.keys("t")  # take over: the first window stops saving
+            second.wait_for("Natural frequency")
+            first.keys(HOME, CLEAR_TO_END, "3", "1", " ", "t")
+            first.wait_for("NOT SAVED")
+            second.keys(HOME, CLEAR_TO_END, "2", "2", " ", "t")
+            time.sleep(1.0)
+            second.keys("\x1b[21~")  # F10: save and quit
+            second.child.expect(pexpect.EOF, timeout=20)
+        finally:
+            second.child.terminate(force=True)
+        saved = json.loads((state / "fieldmode" / "session.json").read_text())
+        assert saved["shared"]["structure: mass"] == "22 t"  # the window that took over, not the other
+    finally:
+        first.child.terminate(force=True)

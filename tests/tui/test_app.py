@@ -6,14 +6,22 @@ import asyncio
 import math
 import os
 import signal
+import subprocess
+import sys
+import time
 
 import pytest
-from helpers.pilot import focus_field, go_to, note_of, screen_text, settle, type_into
+from helpers.pilot import focus_field, go_to, keys_for, note_of, screen_text, settle, type_into
 from helpers.specs import TWIN
+from textual import events
 
 from fieldmode.calc.checks import sdof
+from fieldmode.tui.app import ascii_terminal
 from fieldmode.tui.present import field_text, value_text
 from fieldmode.tui.session import parse_session
+from fieldmode.tui.session_lock import SessionLock
+from fieldmode.tui.widgets.owner_screen import OwnerScreen
+from fieldmode.tui.widgets.quit_screen import QuitScreen
 from fieldmode.tui.widgets.send_screen import SendScreen
 
 SIZE = (80, 24)
@@ -208,7 +216,7 @@ def test_hangup_or_terminate_saves_and_exits_cleanly(make_app, state, signum):
 
     app = asyncio.run(scenario())
     assert app.return_value == 0
-    assert parse_session((state / "session.json").read_text()).texts["sdof"]["mass"] == "5 t"
+    assert parse_session((state / "session.json").read_text()).shared["structure: mass"] == "5 t"
 
 
 @pytest.mark.parametrize("content", [b"{not json", b'{"format": "other"}', b"\xff\xfe\x00binary",
@@ -267,7 +275,164 @@ def test_read_only_state_folder_warns_and_the_app_still_works(make_app, tmp_path
             assert view.outcome.result is not None
             assert "NOT SAVED" in screen_text(app)
             assert any(message.startswith("Session not saved: cannot write") for message in app.messages)
+            # Common practice (no source): quitting never throws away inputs without asking
+            await pilot.press("f10")
+            await pilot.pause()
+            assert isinstance(app.screen, QuitScreen) and app.is_running
+            await pilot.press("escape")  # stay
+            await pilot.pause()
+            assert app.is_running and not isinstance(app.screen, QuitScreen)
+            await pilot.press("f10")
+            await pilot.pause()
+            await pilot.press("home", "ctrl+k", *keys_for(str(tmp_path / "kept.json")), "enter")
+            await pilot.pause()
+        kept = parse_session((tmp_path / "kept.json").read_text())
+        assert kept.shared["structure: mass"] == "20 t"
+        assert app.return_code == 0
 
     asyncio.run(scenario())
     if kind == "chmod-555":
         folder.chmod(0o755)
+
+
+def test_a_second_window_on_one_session_asks_and_never_overwrites_the_first(make_app, state, tmp_path):
+    with subprocess.Popen([sys.executable, "-c", "import time; time.sleep(60)"]) as first:
+        try:
+            holder = SessionLock(state)
+            holder.pid = first.pid
+            holder.take()
+
+            async def read_only():
+                app = make_app()
+                async with app.run_test(size=SIZE) as pilot:
+                    await pilot.pause()
+                    assert isinstance(app.screen, OwnerScreen) and str(first.pid) in screen_text(app)
+                    await pilot.press("r")
+                    await settle(app, pilot)
+                    await type_into(app, pilot, "mass", "33 t")
+                    assert "READ-ONLY" in screen_text(app)
+                    assert not (state / "session.json").exists()  # the first window's session is untouched
+                    await pilot.press("f10")
+                    await pilot.pause()
+                    assert isinstance(app.screen, QuitScreen)  # typed here, not saved: asked
+                    await pilot.press("f10")  # quit without saving, deliberately
+                    await pilot.pause()
+                assert not (state / "session.json").exists()
+
+            async def take_over():
+                app = make_app()
+                async with app.run_test(size=SIZE) as pilot:
+                    await pilot.pause()
+                    await pilot.press("t")
+                    await settle(app, pilot)
+                    await type_into(app, pilot, "mass", "34 t")
+                    await app.workers.wait_for_complete()
+                    assert not holder.held()  # the first window stops saving
+                    await pilot.press("f10")
+                    await pilot.pause()
+                assert parse_session((state / "session.json").read_text()).shared["structure: mass"] == "34 t"
+
+            asyncio.run(read_only())
+            asyncio.run(take_over())
+        finally:
+            first.kill()
+
+
+def test_a_fault_in_the_app_saves_the_session_and_exits_with_status_1(make_app, state):
+    async def scenario():
+        app = make_app()
+
+        def broken() -> None:
+            raise RuntimeError("a bug")
+
+        app.action_keys = broken  # F1 now raises, as a bug in an action would
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await type_into(app, pilot, "mass", "13 t")
+            await pilot.press("f1")
+            await pilot.pause()
+        return app
+
+    app = asyncio.run(scenario())
+    assert app.return_code == 1  # Common practice (no source): a fault ends with a non-zero status
+    saved = parse_session((state / "session.json").read_text())
+    assert saved.shared["structure: mass"] == "13 t"
+    reports = list(state.glob("fault-*.txt"))
+    assert reports and "RuntimeError: a bug" in reports[0].read_text()
+
+
+@pytest.mark.parametrize(("environ", "ascii_drawn"), [
+    ({"TERM": "xterm-256color", "LANG": "en_GB.UTF-8"}, False),
+    ({"TERM": "xterm-256color", "LANG": "C.utf8"}, False),
+    ({"TERM": "linux", "LANG": "en_GB.UTF-8"}, True),
+    ({"TERM": "dumb", "LANG": "en_GB.UTF-8"}, True),
+    ({"TERM": "xterm", "LANG": "C"}, True),
+    ({"TERM": "xterm", "LC_ALL": "POSIX", "LANG": "en_GB.UTF-8"}, True),
+    ({"TERM": "xterm", "LANG": "en_GB.UTF-8", "FIELDMODE_ASCII": "1"}, True),
+])
+def test_ascii_drawing_where_the_terminal_needs_it(environ, ascii_drawn):
+    # Common practice (no source): consoles without UTF-8 or box characters get plain ASCII
+    assert ascii_terminal(environ) is ascii_drawn
+
+
+def test_a_narrow_terminal_keeps_room_for_the_results(make_app):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=(40, 12)) as pilot:
+            view = await settle(app, pilot)
+            assert view.query_one(".results-box").size.width >= 15
+            assert "10.53 Hz" in screen_text(app)
+
+    asyncio.run(scenario())
+
+
+def test_a_burst_of_every_key_with_a_slow_computation_leaves_the_app_running(make_app, monkeypatch):
+    from fieldmode.tui import evaluation
+
+    original = evaluation.evaluate_guarded
+
+    def slow(*args, **kwargs):  # a busy machine: every computation takes a while
+        time.sleep(0.15)
+        return original(*args, **kwargs)
+
+    monkeypatch.setattr(evaluation, "evaluate_guarded", slow)
+    keys = ["f6", "f6", "f1", "escape", "f6", "f3", "f6", "f1", "f4", "escape", "f7", "escape", "f8", "escape",
+            "f9", "escape", "f2", "f6", "pagedown", "pageup", "f5", "f6", "f1", "f1", "f3", "f3", "f6", "escape"]
+
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await pilot.pause()
+            for key in keys:  # all at once, as keys arrive together over a slow link
+                app.post_message(events.Key(key, None))
+            for _ in range(100):
+                await pilot.pause(0.05)
+            await app.workers.wait_for_complete()
+            await pilot.pause()
+            assert app.is_running and app.return_code is None
+            while len(app.screen_stack) > 1:
+                await pilot.press("escape")
+            view = await settle(app, pilot)
+            assert view.outcome is not None
+        assert app.return_code in (0, None)
+
+    asyncio.run(scenario())
+
+
+def test_every_line_of_a_send_can_be_unticked_at_once(make_app):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await go_to(app, pilot, "decay")
+            before = {check: dict(texts) for check, texts in app.workspace.texts.items()}
+            await pilot.press("f8")
+            await pilot.pause()
+            await pilot.press("n")
+            assert "[x]" not in screen_text(app)
+            await pilot.press("down", "space", "enter")  # only the second line
+            await pilot.pause()
+            sent = app.screen_stack[0] and [c for c, t in app.workspace.texts.items() if t != before[c]]
+            assert len(app.messages) and app.messages[-1].startswith("Sent ") and app.messages[-1].count(" = ") == 1
+            assert sent
+
+    asyncio.run(scenario())

@@ -24,7 +24,7 @@ def test_save_then_load_round_trip(tmp_path):
     loaded = store.load()
     assert loaded.messages == [] and loaded.data == data
     raw = json.loads(store.path.read_text())
-    assert raw["format"] == "fieldmode-session" and raw["version"] == 1
+    assert raw["format"] == "fieldmode-session" and raw["version"] == 2
     assert [p.name for p in store.folder.iterdir()] == ["session.json"]  # no temporary file left
 
 
@@ -69,3 +69,55 @@ def test_unwritable_folder_is_reported_not_raised(tmp_path):
     assert "will not be saved" in store.probe()[0]
     problem = store.save(SessionData({}))
     assert problem.startswith("Session not saved: cannot write") and "Not a directory" in problem
+
+
+@pytest.mark.parametrize("content", [
+    "[" * 100_000 + "]" * 100_000,
+    '{"format": "fieldmode-session", "checks": {"sdof": {"mass": "' + "9" * 100_000 + '"}}}',
+    '{"format": "fieldmode-session", "checks": {}, "shared": {"structure: mass": ["9.6 t"]}}',
+    '{"format": "fieldmode-session", "checks": {}, "project": {"project": {"deep": "x"}}}',
+])
+def test_a_session_of_any_damaged_shape_is_moved_aside(tmp_path, content):
+    # Common practice (no source): a damaged settings file must never stop the program from opening
+    store = SessionStore(tmp_path)
+    (tmp_path / "session.json").write_text(content)
+    loaded = store.load()
+    assert loaded.data is None and "moved to" in loaded.messages[0]
+    assert not (tmp_path / "session.json").exists()
+    assert any(path.name.startswith("session.json.unreadable-") for path in tmp_path.iterdir())
+
+
+def test_a_record_of_two_files_is_written_whole_or_not_at_all(tmp_path, monkeypatch):
+    from fieldmode.tui.files import write_all_atomic
+
+    md, js = tmp_path / "r.md", tmp_path / "r.json"
+    md.write_text("old md")
+    js.write_text("old json")
+    real_replace = os.replace
+
+    def failing(source, target):
+        if str(target).endswith(".json"):
+            raise OSError(28, "No space left on device")
+        return real_replace(source, target)
+
+    monkeypatch.setattr(os, "replace", failing)
+    with pytest.raises(OSError) as caught:
+        write_all_atomic({md: "new md", js: "new json"})
+    monkeypatch.setattr(os, "replace", real_replace)
+    # Common practice (no source): a record of several files is all new or all old, never half of each
+    assert md.read_text() == "old md" and js.read_text() == "old json"
+    assert caught.value.filename == str(js)
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["r.json", "r.md"]
+
+
+def test_a_replaced_file_keeps_its_permissions_and_a_new_one_follows_the_umask(tmp_path):
+    from fieldmode.tui.files import UMASK
+
+    kept = tmp_path / "kept.md"
+    kept.write_text("old")
+    kept.chmod(0o640)
+    write_atomic(kept, "new")
+    assert (kept.stat().st_mode & 0o777) == 0o640 and kept.read_text() == "new"
+    fresh = tmp_path / "fresh.md"
+    write_atomic(fresh, "new")
+    assert (fresh.stat().st_mode & 0o777) == 0o666 & ~UMASK

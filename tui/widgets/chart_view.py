@@ -60,13 +60,15 @@ class ChartPane(Vertical):
         self.panel = 0
         """Index of the panel shown, into the check's chart panels."""
         self._plot: Any = None
+        self._message = Static("", classes="chart-message", markup=False)
+        """Why there is no chart (kept, never looked up: it may be drawn before it is mounted)."""
 
     def compose(self) -> ComposeResult:
-        yield Static("", classes="chart-message", markup=False)
+        yield self._message
 
     def draw(self, result: Result | None, system: str, computing: bool = False) -> None:
         """Draw the current panel for ``result`` (or say why there is none, or that it is being computed)."""
-        message = self.query_one(".chart-message", Static)
+        message = self._message
         draws = panels_of(self.check_id)
         if not draws or result is None:
             message.update("no chart for this check" if not draws else
@@ -77,6 +79,9 @@ class ChartPane(Vertical):
             return
         if self._plot is None:
             self._plot = _safe_plot_class()()
+            if self.is_mounted:
+                self.mount(self._plot)
+        elif not self._plot.is_mounted and self.is_mounted:
             self.mount(self._plot)
         self.border_title = f"chart {self.panel + 1}/{len(draws)}"
         plt = self._plot.plt

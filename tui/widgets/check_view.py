@@ -64,6 +64,10 @@ class CheckView(Vertical):
         self._rows: dict[str, FieldRow] = {}
         self._table = ResultsTable("", classes="results")
         self._flags = FlagsList("", classes="flags")
+        self._fields_box = VerticalScroll(classes="fields", can_focus=False)
+        self._results_box = VerticalScroll(classes="results-box", can_focus=False)
+        self._right = Vertical(classes="right")
+        """The pane's parts, kept: never looked up, so never missed while a burst of keys outruns mounting."""
         self._chart: ChartPane | None = None
         """Made the first time a chart is shown."""
 
@@ -79,11 +83,9 @@ class CheckView(Vertical):
         self._rows = {spec_field.name: FieldRow(self.spec.id, spec_field, texts.get(spec_field.name, ""), self._edited)
                       for spec_field in self.spec.fields}
         with Horizontal(classes="panes"):
-            with VerticalScroll(classes="fields") as fields:
-                fields.can_focus = False
+            with self._fields_box:
                 yield from self._rows.values()
-            with Vertical(classes="right"), VerticalScroll(classes="results-box") as box:
-                box.can_focus = False
+            with self._right, self._results_box:
                 yield self._table
         yield self._flags
 
@@ -191,7 +193,7 @@ class CheckView(Vertical):
 
     def scroll_results(self, pages: int) -> None:
         """Scroll the results (or the fields, in chart view) by whole pages."""
-        box = self.query_one(".fields" if self.view else ".results-box", VerticalScroll)
+        box = self._fields_box if self.view else self._results_box
         box.scroll_to(y=box.scroll_y + pages * max(1, box.size.height - 1), animate=False)
 
     async def cycle_view(self) -> str:
@@ -203,11 +205,11 @@ class CheckView(Vertical):
         self.view = (self.view + 1) % (panels + 1)
         if self.view and self._chart is None:
             self._chart = ChartPane(self.spec.id)
-            await self.query_one(".right").mount(self._chart)
+            await self._right.mount(self._chart)
         self.set_class(bool(self.view), "-chart")
         for row in self._rows.values():
             row.show_notes(not self.view)
-        self.query_one(".results-box").display = not self.view
+        self._results_box.display = not self.view
         if self._chart is not None:
             self._chart.display = bool(self.view)
         if not self.view or self._chart is None:

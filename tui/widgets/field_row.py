@@ -14,11 +14,10 @@ from textual.widget import Widget
 from textual.widgets import Input
 
 from fieldmode.calc.framework.spec import Field
+from fieldmode.tui.printable import printable
 from fieldmode.tui.widgets.dialog import hand_to_dialog
 from fieldmode.tui.widgets.path_suggester import PathSuggester
 
-MAX_INPUT = 4096
-"""Characters accepted in a text box (the parser refuses long text with a clear message)."""
 INDENT = 2
 """Cells before the text box (the '>' focus marker sits in them on the label line)."""
 BOX_WIDTH, PATH_BOX_WIDTH = 16, 19
@@ -41,13 +40,28 @@ class FieldInput(Input):
         self._edited: Callable[[str], None] | None = None  # the first value is not an edit
         super().__init__(value, **options)
         self._edited = edited
+        self.cut = 0
+        """Characters of the last paste left out because the field holds no more (0: none)."""
 
     def watch_value(self, value: str) -> None:
         """Report every change at once to the check pane (a message would hop through five containers)."""
         if self._edited is not None:
             self._edited(value)
 
+    def _on_paste(self, event: events.Paste) -> None:
+        """Paste the first line, without control characters, cut to what the field holds (and say so)."""
+        line = printable(event.text.splitlines()[0]) if event.text else ""
+        start, end = sorted(self.selection)
+        room = max(0, self.max_length - len(self.value) + (end - start)) if self.max_length else len(line)
+        self.cut = max(0, len(line) - room)
+        if line[:room]:
+            self.replace(line[:room], start, end)
+        event.stop()
+        if self.cut and self._edited is not None:
+            self._edited(self.value)  # the row says the paste was cut
+
     async def _on_key(self, event: events.Key) -> None:
+        self.cut = 0  # typed after a paste: the note of the cut paste has served
         if hand_to_dialog(self, event):  # typed after the key that opened a dialog
             return
         focused = self.app.focused
@@ -83,9 +97,10 @@ class FieldRow(Widget):
         super().__init__(classes="field-row" + (" -path" if spec_field.kind == "path" else ""))
         self.check_id = check_id
         self.field = spec_field
-        self.input: Input = FieldInput(text, lambda value: edited(spec_field.name, value),
-                                       id=input_id(check_id, spec_field.name), compact=True,
-                                       suggester=self._suggester(), max_length=MAX_INPUT, select_on_focus=False)
+        self.input: FieldInput = FieldInput(printable(text), lambda value: edited(spec_field.name, value),
+                                            id=input_id(check_id, spec_field.name), compact=True,
+                                            suggester=self._suggester(), max_length=spec_field.max_length,
+                                            select_on_focus=False)
         self.note = ""
         """How the text was read, as shown beside the box."""
         self.error = ""
@@ -94,6 +109,7 @@ class FieldRow(Widget):
         """False in chart view, where the pane is too narrow for the readings."""
         self._focused = False
         self._shape: tuple[int, int] | None = None
+        self._cut_shown = 0
 
     def compose(self) -> ComposeResult:
         yield self.input
@@ -115,8 +131,10 @@ class FieldRow(Widget):
         labels = textwrap.wrap(label, max(8, width - 2)) or [""]
         beside = max(4, width - INDENT - self._box_width - 1)
         note = "! not read" if self.error else self.note
-        notes = (textwrap.wrap(note, beside) or [""]) if self.notes_shown else [""]
-        errors = textwrap.wrap("! " + self.error, max(8, width - INDENT)) if self.error else []
+        if self.input.cut:
+            note = f"! pasted text cut at {self.input.max_length} characters; {note}"
+        notes = (textwrap.wrap(printable(note), beside) or [""]) if self.notes_shown else [""]
+        errors = textwrap.wrap("! " + printable(self.error), max(8, width - INDENT)) if self.error else []
         return labels, notes, errors
 
     def _fit(self) -> None:
@@ -157,9 +175,9 @@ class FieldRow(Widget):
 
     def show(self, note: str, error: str) -> None:
         """Show how the text was read, or what is wrong with it (marked with '!')."""
-        if (note, error) == (self.note, self.error):
+        if (note, error, self.input.cut) == (self.note, self.error, self._cut_shown):
             return
-        self.note, self.error = note, error
+        self.note, self.error, self._cut_shown = note, error, self.input.cut
         self.set_class(bool(error), "-error")
         self._fit()
         self.refresh()
@@ -174,6 +192,7 @@ class FieldRow(Widget):
     def set_text(self, text: str) -> None:
         """Put ``text`` in the box; the pane ignores it as an edit (the session holds it already)."""
         box = self.input
+        text = printable(text)
         if box.value != text:
             box.value = text
             box.cursor_position = len(text)

@@ -46,8 +46,9 @@ class HelpScreen(Dialog[None]):
             table.add_column("what it does", ratio=1)
             for keys, what, _ in self._rows:
                 table.add_row(Text(keys), Text(what))
-            with VerticalScroll(classes="help-keys"):
+            with VerticalScroll(classes="help-keys") as self._keys:
                 yield Static(table, id="help-table")
 
     def on_mount(self) -> None:
-        self.query_one(VerticalScroll).focus()
+        if self._keys.is_mounted:
+            self._keys.focus()

@@ -9,6 +9,7 @@ from textual.geometry import Size
 from textual.widgets import Static
 
 from fieldmode.calc.framework.result import Flag
+from fieldmode.tui.printable import printable
 
 LEVEL_STYLES = {"info": "", "caution": "bold", "warning": "bold reverse"}
 LONG_VALUE = 24
@@ -67,7 +68,7 @@ def flag_line(flag: Flag) -> Text:
     from fieldmode.tui.present import flag_heading  # loaded with the first result
 
     line = Text(flag_heading(flag.level) + ": ", style=LEVEL_STYLES[flag.level])
-    line.append(flag.text)
+    line.append(printable(flag.text))
     return line
 
 

@@ -28,11 +28,14 @@ def target_line(target: Target) -> Text:
 
 
 class SendScreen(Dialog[list[Target] | None]):
-    """Up/Down to move, Space ticks or unticks a line, Enter sends the ticked lines, Escape sends nothing."""
+    """Up/Down to move, Space ticks or unticks a line, A and N tick or untick all, Enter sends the ticked lines,
+    Escape sends nothing."""
 
     BINDINGS = [
         Binding("escape", "dismiss", "send nothing", id="send.cancel"),
         Binding("space", "tick", "tick or untick", id="send.tick"),
+        Binding("a", "tick_all(True)", "tick all", id="send.all"),
+        Binding("n", "tick_all(False)", "untick all", id="send.none"),
     ]
 
     def __init__(self, source: str, targets: list[Target], notes: list[str]) -> None:
@@ -43,8 +46,10 @@ class SendScreen(Dialog[list[Target] | None]):
 
     def compose(self) -> ComposeResult:
         with Vertical(classes="dialog"):
-            yield Static(Text(f"Send results of {self.source} (Space ticks, Enter sends, Escape cancels)",
-                              style="bold"))
+            yield Static(Text(f"Send results of {self.source}", style="bold"))
+            yield Static(Text("Space ticks or unticks a line, A ticks all, N unticks all; Enter sends the ticked "
+                              "lines, Escape sends nothing. Several structures in one session? Tick only this "
+                              "one's."), classes="dialog-note")
             yield OptionList(*(target_line(target) for target in self.targets), id="send-targets")
             for note in self.notes:
                 yield Static(Text("i " + note), classes="dialog-note")
@@ -60,6 +65,12 @@ class SendScreen(Dialog[list[Target] | None]):
         target = self.targets[index]
         target.ticked = not target.ticked
         options.replace_option_prompt_at_index(index, target_line(target))
+
+    def action_tick_all(self, ticked: bool) -> None:
+        options = self.query_one(OptionList)
+        for index, target in enumerate(self.targets):
+            target.ticked = ticked
+            options.replace_option_prompt_at_index(index, target_line(target))
 
     def on_option_list_option_selected(self, event: OptionList.OptionSelected) -> None:
         event.stop()

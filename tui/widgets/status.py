@@ -25,10 +25,11 @@ class TopBar(Line):
     """Check position and title, unit system, what the right pane shows, save state."""
 
     def show_state(self, index: int, count: int, check_id: str, title: str, system: str, view: str,
-                   unsaved: bool) -> None:
+                   saved: str) -> None:
+        """``saved`` is '' when the session is saved, else what to say ('NOT SAVED', 'READ-ONLY')."""
         line = Text(f" {index + 1}/{count} ", style="reverse")
         line.append(f" {check_id}: {title}", style="bold")
-        tail = f"units {system.upper()} | {view}" + (" | NOT SAVED" if unsaved else "")
+        tail = f"units {system.upper()} | {view}" + (f" | {saved}" if saved else "")
         width = max(self.size.width, 80)
         line.append(" " * max(1, width - len(line) - len(tail) - 1))
         line.append(tail)

@@ -10,6 +10,7 @@ from hypothesis import strategies as st
 
 from fieldmode.calc.checks import BY_ID
 from fieldmode.calc.checks.member import ELEMENTS
+from fieldmode.calc.framework.meaning import STRUCTURE, Meaning
 from fieldmode.calc.framework.units import STANDARD_GRAVITY, InputError
 from fieldmode.calc.physics import member
 
@@ -131,9 +132,12 @@ def test_equivalent_mass_gives_the_beam_frequency_on_sdof() -> None:
     assert result.values["equivalent_mass"].si() == pytest.approx(48 / math.pi**4 * M * L)
 
 
-def test_stiffness_is_sent_to_other_checks() -> None:
-    assert SPEC.sends == {"stiffness": "stiffness"}
-    assert all(any(f.name == "stiffness" for f in BY_ID[c].fields) for c in ("sdof", "forced", "isolate"))
+def test_stiffness_means_the_structures_not_the_mounts() -> None:
+    # Common practice (no source): a beam under a machine is the structure's stiffness, a spring mount is not
+    meaning = SPEC.evaluate(SPEC.demo_texts()).values["stiffness"].meaning
+    assert meaning == Meaning("stiffness", STRUCTURE)
+    assert BY_ID["sdof"].field("stiffness").meaning == BY_ID["forced"].field("stiffness").meaning == meaning
+    assert BY_ID["isolate"].field("stiffness").meaning != meaning
 
 
 def test_si_and_us_inputs_give_the_same_si_result() -> None:

@@ -9,6 +9,7 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from fieldmode.calc.checks import BY_ID
+from fieldmode.calc.framework.meaning import BUILDING, Meaning
 from fieldmode.calc.framework.result import SEISMIC_CAUTION
 from fieldmode.calc.framework.units import InputError
 
@@ -30,7 +31,7 @@ def test_period_both_codes_side_by_side() -> None:
     # Source: ASCE 7-16 12.8.2.1, Table 12.8-2: 0.028 x (11.5 / 0.3048 ft)^0.8
     assert si(result, "period_asce") == pytest.approx(0.028 * (11.5 / 0.3048) ** 0.8, rel=2e-3)
     assert result.caution == SEISMIC_CAUTION
-    assert PERIOD.sends == {"period": "period"}
+    assert result.values["period"].meaning == Meaning("fundamental period", BUILDING)
 
 
 def test_period_in_feet_and_height_limit() -> None:

@@ -54,3 +54,18 @@ def test_any_text_in_any_field_raises_only_input_error(spec: CheckSpec, data: st
         magnitude = value.si()
         if isinstance(magnitude, float):
             assert math.isfinite(magnitude), value.label
+
+
+def test_one_meaning_is_one_physical_kind_everywhere() -> None:
+    # Common practice (no source): a value can only move where it means the same quantity, so a meaning has
+    # one physical kind wherever a field or a result has it
+    kinds: dict[str, set[str]] = {}
+    for spec in SPECS:
+        for field in spec.fields:
+            if field.meaning is not None:
+                kinds.setdefault(field.meaning.key, set()).add(field.kind)
+        result = spec.evaluate(spec.demo_texts())
+        for value in result.values.values():
+            if value.meaning is not None:
+                kinds.setdefault(value.meaning.key, set()).add(value.kind)
+    assert {key: found for key, found in kinds.items() if len(found) > 1} == {}

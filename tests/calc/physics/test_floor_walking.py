@@ -316,6 +316,42 @@ def test_bad_inputs_are_refused() -> None:
         fw.dg11_acceleration(3.0, 0.03, math.inf)
 
 
+def test_a_band_of_one_pacing_rate_gives_the_response_to_walking_at_that_rate() -> None:
+    from scipy import signal
+
+    frequency, damping, mass, pace = 2.0, 0.03, 20e3, 1.8
+    result = fw.resonant_response(frequency, damping, mass, band=(pace, pace))
+    omega = 2 * math.pi * frequency
+    _, response = signal.freqresp(signal.lti([1.0 / mass, 0.0, 0.0], [1.0, 2 * damping * omega, omega**2]),
+                                  w=[2 * math.pi * pace])
+    # Oracle: scipy.signal.freqresp of a(s)/F(s) at the pacing rate; From memory: SCI P354 alpha_1 = 0.436 (fp - 0.95)
+    assert (result.harmonic, result.pacing_rate) == (1, pace)
+    assert result.peak == pytest.approx(0.436 * (pace - 0.95) * 700.0 * abs(response[0]), rel=1e-10)
+    # Common practice (no source): a band that leaves out the resonant pace lowers the response
+    assert result.peak < fw.resonant_response(frequency, damping, mass).peak
+
+
+def test_a_pacing_band_upside_down_is_refused() -> None:
+    # Common practice (no source): the fastest pacing rate cannot be below the slowest
+    with pytest.raises(ValueError, match="fastest pacing rate 1.5 Hz is below the slowest 2 Hz"):
+        fw.resonant_response(3.0, 0.03, 1e4, band=(2.0, 1.5))
+    with pytest.raises(ValueError, match="slowest pacing rate"):
+        fw.resonant_response(3.0, 0.03, 1e4, band=(0.0, 1.5))
+
+
+@settings(max_examples=40, deadline=None)
+@given(damping=st.floats(0.005, 0.1), mass=st.floats(1e3, 1e6), path=st.one_of(st.none(), st.floats(2.0, 60.0)),
+       crossing=st.booleans(), guide=st.sampled_from(fw.GUIDES), low=st.floats(1.0, 2.0), width=st.floats(0.0, 1.0))
+def test_response_factors_on_arrays_equal_the_single_mode_response(damping: float, mass: float, path: float | None,
+                                                                   crossing: bool, guide: str, low: float,
+                                                                   width: float) -> None:
+    options = {"path_length": path, "crossing": crossing, "guide": guide, "band": (low, low + width)}
+    frequencies = np.linspace(1.0, 8.9, 37)
+    # Common practice (no source): the array form is the same computation as resonant_response, mode by mode
+    assert fw.resonant_response_factors(frequencies, damping, mass, **options) == pytest.approx(
+        [fw.resonant_response(float(f), damping, mass, **options).response_factor for f in frequencies], rel=1e-12)
+
+
 # --- high-frequency floors: footfall impulse ----------------------------------------------------------------
 
 def test_effective_impulse_at_hand_worked_points() -> None:

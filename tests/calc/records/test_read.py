@@ -200,8 +200,10 @@ def test_column_choices_are_checked(tmp_path: Path) -> None:
         read_record(path, time_column=5)
     with pytest.raises(RecordError, match="the time and the signal are both column 1"):
         read_record(path, signal_column=1)
-    with pytest.raises(RecordError, match="not both"):
+    # Common practice (no source): a sample rate typed beside a time column must agree with it
+    with pytest.raises(RecordError, match="100 Hz, disagrees with the time column's 200 Hz"):
         read_record(path, time_column=1, sample_rate=100.0)
+    assert read_record(path, sample_rate=200.5).sample_rate == pytest.approx(FS)
     with pytest.raises(InputError, match="signal unit"):
         read_record(path, signal_unit="kN")
     with pytest.raises(InputError, match="sample rate"):

@@ -22,6 +22,9 @@ VARIANTS = [
     ("design-spectrum", {"behaviour_factor": "", "mass": ""}),
     ("footfall", {"lateral_frequency": "", "structure": "floor"}),
     ("tmd", {"excitation": "ground", "mass_ratio": "5 %"}),
+    ("floor", {"frequency": "12 Hz", "damping": "0 %", "effective_weight": "", "pacing_low": "2 Hz",
+               "pacing_high": "2 Hz"}),
+    ("footbridge", {"lateral_frequency": "", "traffic_class": "TC5"}),
 ]
 
 
