@@ -22,7 +22,7 @@ from fieldmode.calc.framework.spec import CheckSpec
 from fieldmode.tui.evaluation import Outcome
 from fieldmode.tui.files import write_all_atomic
 from fieldmode.tui.present import flag_text, si_text, typed_si_text, value_text
-from fieldmode.tui.record_curves import curves_json, curves_markdown
+from fieldmode.tui.record_curves import curves_markdown
 from fieldmode.tui.session import PROJECT_FIELDS
 
 PROJECT_LABELS = {"project": "Project", "job": "Job number", "engineer": "Engineer", "note": "Note"}
@@ -140,16 +140,13 @@ def _finite(data: Any) -> Any:
 
 def as_json(entries: Sequence[Entry], when: time.struct_time,
             project: Mapping[str, str] | None = None) -> dict[str, Any]:
-    """The record as a JSON object: the project fields; per check its SI values (Result.to_dict), or the texts
-    and errors if not computed; and ``series``: check id -> every curve in full (SI)."""
+    """The record as a JSON object: the project fields; per check its values and curves in SI, exactly as
+    ``--json`` gives them (Result.to_dict), or the texts and errors if not computed."""
     checks: list[dict[str, Any]] = []
-    series: dict[str, Any] = {}
     for entry in entries:
         result = entry.outcome.result
         if result is not None:
             checks.append({"title": entry.spec.title, **result.to_dict()})
-            if result.series:
-                series[entry.spec.id] = curves_json(entry.spec, result)
         else:
             checks.append({"check": entry.spec.id, "title": entry.spec.title,
                            "inputs": {name: {"text": text} for name, text in entry.texts.items() if text.strip()},
@@ -157,7 +154,7 @@ def as_json(entries: Sequence[Entry], when: time.struct_time,
                            "caution": entry.spec.caution})
     return _finite({"record": "fieldmode calc record", "version": __version__,
                     "date": time.strftime("%Y-%m-%dT%H:%M:%S%z", when), "project": _project(project),
-                    "checks": checks, "series": series})
+                    "checks": checks})
 
 
 def write_record(path: Path, entries: Sequence[Entry], system: str,

@@ -1,7 +1,8 @@
 """The `fieldmode` command line, generated from the check specs.
 
-Exit status: 0 done; 2 bad input or unreadable file (one line on stderr); 1 an
-unexpected fault (a bug, reported with the version).
+Exit status: 0 done; 2 bad input, an unreadable file, or a curves file that cannot or
+may not be written (one line on stderr); 1 an unexpected fault (a bug, reported with the
+version); 130 interrupted.
 """
 
 from __future__ import annotations
@@ -43,7 +44,8 @@ def build_parser(only: str | None = None) -> argparse.ArgumentParser:
     from fieldmode.calc.checks import CHECK_IDS, load
     from fieldmode.calc.framework.result import CAUTION
 
-    parser = _Parser(prog="fieldmode", description="Structural-dynamics checks for site work. " + CAUTION)
+    parser = _Parser(prog="fieldmode", description="Structural-dynamics checks for site work. " + CAUTION,
+                     epilog="exit status: 0 done, 2 bad input or file (one line on stderr), 1 a fault (a bug)")
     parser.add_argument("--version", action="version", version=f"fieldmode {__version__}")
     commands = parser.add_subparsers(dest="command", parser_class=_Parser)
     commands.add_parser("checks", help="list the checks and their inputs")
@@ -56,7 +58,8 @@ def build_parser(only: str | None = None) -> argparse.ArgumentParser:
 
 
 def _add_check(commands: argparse._SubParsersAction, spec: CheckSpec) -> None:  # type: ignore[type-arg]
-    sub = commands.add_parser(spec.id, help=spec.summary, description=f"{spec.title}: {spec.summary}. {spec.caution}")
+    sub = commands.add_parser(spec.id, help=_help(spec.summary),
+                              description=_help(f"{spec.title}: {spec.summary}. {spec.caution}"))
     for spec_field in spec.fields:
         text = spec_field.label_with_unit
         if spec_field.choices:
@@ -66,11 +69,19 @@ def _add_check(commands: argparse._SubParsersAction, spec: CheckSpec) -> None:  
         if spec_field.group:
             text += f" (alternative: one of the '{spec_field.group}' options)"
         if spec_field.positional:
-            sub.add_argument(spec_field.name, help=text)
+            sub.add_argument(spec_field.name, help=_help(text))
         else:
-            sub.add_argument(spec_field.option, dest=spec_field.name, metavar="VALUE", help=text)
-    sub.add_argument("--json", action="store_true", help="print one JSON object (SI values)")
+            sub.add_argument(spec_field.option, dest=spec_field.name, metavar="VALUE", help=_help(text))
+    sub.add_argument("--json", action="store_true", help="print one JSON object (SI values, curves included)")
+    sub.add_argument("--csv", metavar="FILE", help="write the curves as CSV columns (SI) to FILE, or - for "
+                                                   "standard output instead of the text")
+    sub.add_argument("--overwrite", action="store_true", help="with --csv: replace an existing FILE")
     sub.add_argument("--units", choices=("si", "us"), default="si", help="units of the text output")
+
+
+def _help(text: str) -> str:
+    """Text handed to argparse, which %-formats help: a literal '%' ('5 %') is written '%%'."""
+    return text.replace("%", "%%")
 
 
 def run(argv: Sequence[str]) -> int:
@@ -88,8 +99,16 @@ def run(argv: Sequence[str]) -> int:
     if args.command == "convert":
         return _convert(args.text, args.unit)
     spec = load(args.command)
+    if args.csv is not None:
+        from fieldmode.tui.curves import STDOUT, check_target, write_curves
+
+        check_target(args.csv, overwrite=args.overwrite, json=args.json)
     texts = {f.name: getattr(args, f.name) for f in spec.fields if getattr(args, f.name) is not None}
     result = spec.evaluate(texts, args.units)
+    if args.csv is not None:
+        write_curves(spec, result, args.csv)
+        if args.csv == STDOUT:
+            return EXIT_OK
     if args.json:
         print(json.dumps(result.to_dict(), allow_nan=False))
     else:
@@ -125,7 +144,7 @@ def list_checks() -> str:
 
 def render_text(spec: CheckSpec, result: Result, system: str = "si") -> str:
     """A check's result as plain text for the terminal."""
-    from fieldmode.tui.present import flag_text, value_lines
+    from fieldmode.tui.present import flag_text, table_lines, value_lines
 
     lines = [f"{spec.title} ({spec.id})", "", "Inputs"]
     for name, typed in result.inputs.items():
@@ -137,6 +156,9 @@ def render_text(spec: CheckSpec, result: Result, system: str = "si") -> str:
         rows = value_lines(value, system)
         lines.append(f"  {value.label:<{width}}{rows[0]}")
         lines += [f"  {'':<{width}}{row}" for row in rows[1:]]
+    if result.table:
+        lines += ["", f"Curves by {spec.curve(result.table[0]).label.lower()}"]
+        lines += [f"  {row}" for row in table_lines(result, system)]
     if result.flags:
         lines += ["", "Flags"] + [f"  {flag_text(flag)}" for flag in result.flags]
     lines += ["", "Method"] + [f"  {ref.method}: {ref.source}" for ref in result.references]
@@ -175,8 +197,9 @@ def main(argv: Sequence[str] | None = None) -> int:
 def _failed(error: Exception) -> int:
     """Report a failure on one line of stderr; return its exit status."""
     from fieldmode.calc.framework.units import InputError
+    from fieldmode.tui.curves import CurvesError
 
-    if isinstance(error, InputError):
+    if isinstance(error, InputError | CurvesError):
         print(f"fieldmode: {printable(str(error))}", file=sys.stderr)
         return EXIT_INPUT
     if isinstance(error, OSError):

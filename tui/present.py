@@ -10,7 +10,7 @@ from __future__ import annotations
 import numpy as np
 
 from fieldmode.calc.framework.kinds import KINDS
-from fieldmode.calc.framework.result import Flag, Value, si_unit
+from fieldmode.calc.framework.result import Flag, Result, Value, si_unit
 from fieldmode.calc.framework.units import Reading, display_unit, format_number, format_value, unit_factor, unit_name
 from fieldmode.tui.printable import printable
 
@@ -39,6 +39,33 @@ def value_lines(value: Value, system: str, most: int | None = None) -> list[str]
 def value_text(value: Value, system: str, most: int | None = None) -> str:
     """A result in engineering units on one line (table rows separated by '; ')."""
     return "; ".join(value_lines(value, system, most))
+
+
+def table_columns(result: Result, system: str) -> list[tuple[str, str, list[str]]]:
+    """The curves ``result.table`` names, as (name, display unit, cells) per column, abscissa first.
+
+    Each column is in one engineering unit of ``system`` chosen by its largest value (as a list
+    result is), 4 significant figures; an empty list when the result names no table.
+    """
+    columns = []
+    for name in result.table:
+        kind = result.series_kinds[name]
+        values = np.asarray(result.series[name], dtype=float)
+        unit = display_unit(values, kind, system)
+        scaled = (values * unit_factor(unit, kind)).tolist()
+        cells = [f"{v:.0f}" if KINDS[kind].integer else format_number(v) for v in scaled]
+        columns.append((name, unit_name(unit, kind), cells))
+    return columns
+
+
+def table_lines(result: Result, system: str) -> list[str]:
+    """``result.table`` as aligned text: a line of names, a line of units, then one line per point."""
+    columns = table_columns(result, system)
+    if not columns:
+        return []
+    rows = zip(*([name, unit, *cells] for name, unit, cells in columns), strict=True)
+    widths = [max(len(name), len(unit), *map(len, cells)) for name, unit, cells in columns]
+    return ["  ".join(cell.rjust(width) for cell, width in zip(row, widths, strict=True)).rstrip() for row in rows]
 
 
 def si_text(value: Value) -> str:

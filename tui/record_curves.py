@@ -12,11 +12,10 @@ from __future__ import annotations
 import math
 from collections.abc import Sequence
 from dataclasses import dataclass
-from typing import Any
 
 import numpy as np
 
-from fieldmode.calc.framework.result import Result, si_unit
+from fieldmode.calc.framework.result import Result
 from fieldmode.calc.framework.spec import CheckSpec, Series
 from fieldmode.tui.present import column_text
 
@@ -110,10 +109,3 @@ def curves_markdown(spec: CheckSpec, result: Result, system: str) -> list[str]:
     for table in tables(spec, result):
         lines += table_markdown(table, result, system)
     return lines
-
-
-def curves_json(spec: CheckSpec, result: Result) -> dict[str, Any]:
-    """Every curve in full, SI: name -> label, unit, the series it is drawn against, values."""
-    return {curve.name: {"label": curve.label, "unit": si_unit(result.series_kinds[curve.name]),
-                         "against": curve.against, "values": np.asarray(result.series[curve.name]).tolist()}
-            for curve in spec.series if curve.name in result.series}

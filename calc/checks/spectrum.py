@@ -34,6 +34,8 @@ MIN_PERIOD = 0.001
 MAX_COUNT = 500
 """Most periods in a grid."""
 SIGNAL_UNITS = ("g", "m/s^2", "cm/s^2")
+TABLE = ("period", "sd", "sv", "psv", "psa", "total_acceleration", "design_psa")
+"""Curves shown as a table when the periods are typed as a list (the overlay when it is given)."""
 
 FIELDS = (
     Field("file", "Accelerogram file", "path", demo_name(GROUND_MOTION), positional=True,
@@ -118,7 +120,9 @@ def compute(inputs: Inputs) -> Result:
         notes.append(Flag("info", f"overlay {overlay.text}"))
         references += (Reference("Horizontal elastic response spectrum", "EN 1998-1:2004 3.2.2.2, eq. 3.2-3.6"),)
     flags = notes + _flags(spectrum, dt, time[-1] - time[0], acc, corrected, pga)
-    return inputs.result(values, series=series, flags=tuple(flags), references=references, files=(file,))
+    table = tuple(name for name in TABLE if name in series) if inputs.has("periods") else ()
+    return inputs.result(values, series=series, flags=tuple(flags), references=references, files=(file,),
+                         table=table)
 
 
 def _marked(single: Spectrum) -> dict[str, Value]:

@@ -236,14 +236,17 @@ class Inputs:
 
     def result(self, values: Mapping[str, Value], *, series: Mapping[str, np.ndarray] | None = None,
                flags: tuple[Flag, ...] = (), references: tuple[Reference, ...] = (),
-               signal_kind: str | None = None, files: tuple[InputFile, ...] = ()) -> Result:
+               signal_kind: str | None = None, files: tuple[InputFile, ...] = (),
+               table: tuple[str, ...] = ()) -> Result:
         """Build this check's :class:`Result`, adding input notes to the flags.
 
         ``files`` names every file the check read (the calc record and ``--json`` list them).
 
         ``signal_kind`` is the physical kind of the record's signal, for curves declared as
-        :data:`~fieldmode.calc.framework.spec.SIGNAL`. Raises ValueError for a curve the spec does
-        not declare (a bug in the check).
+        :data:`~fieldmode.calc.framework.spec.SIGNAL`. ``table`` names curves to show as a table of
+        numbers: an abscissa, then curves drawn against it (a check gives it when the user typed the
+        abscissa as a list). Raises KeyError for a curve the spec does not declare and ValueError for
+        a table that is not one abscissa and its curves (bugs in the check).
         """
         made = dict(series or {})
         kinds: dict[str, str] = {}
@@ -254,5 +257,16 @@ class Inputs:
                     raise ValueError(f"check {self.spec.id}: series {name} needs the record's signal kind")
                 kind = signal_kind
             kinds[name] = kind
+        self._check_table(table, made)
         return Result(self.spec.id, self.typed(), dict(values), made, self.notes() + tuple(flags), references,
-                      self.spec.caution, kinds, files)
+                      self.spec.caution, kinds, files, table)
+
+    def _check_table(self, table: tuple[str, ...], made: Mapping[str, np.ndarray]) -> None:
+        """ValueError unless ``table`` is empty or an abscissa then curves against it, all made, of one length."""
+        if not table:
+            return
+        abscissa, *curves = table
+        if (any(name not in made for name in table) or self.spec.curve(abscissa).against is not None
+                or any(self.spec.curve(name).against != abscissa for name in curves)
+                or len({np.shape(made[name]) for name in table}) > 1):
+            raise ValueError(f"check {self.spec.id}: table {table} is not an abscissa and its curves, all made")

@@ -112,6 +112,15 @@ def si_unit(kind: str) -> str:
     return KINDS[kind].si or "1"
 
 
+def finite_list(values: np.ndarray) -> list[float | None]:
+    """A curve's values as a list of floats, each non-finite point (NaN, inf) as None."""
+    array = np.ravel(np.asarray(values, dtype=float))
+    listed: list[float | None] = array.tolist()
+    if not np.all(np.isfinite(array)):
+        listed = [value if math.isfinite(value) else None for value in array.tolist()]
+    return listed
+
+
 @dataclass(frozen=True)
 class Result:
     """Everything a check found: inputs, files read, values, curves (SI arrays), flags and sources."""
@@ -127,20 +136,31 @@ class Result:
     """Series name -> physical kind of its values."""
     files: tuple[InputFile, ...] = ()
     """Every file the check read."""
+    table: tuple[str, ...] = ()
+    """Series to show as a table of numbers, abscissa first (e.g. a spectrum at periods the user listed)."""
 
     def number(self, name: str) -> float | None:
         """A finite scalar result by name, or None when absent, a word, an array or not finite."""
         value = self.values.get(name)
         return None if value is None else value.number()
 
+    def series_unit(self, name: str) -> str:
+        """The SI unit of the curve ``name`` as JSON and CSV write it ('1' for ratios and plain numbers)."""
+        return si_unit(self.series_kinds[name])
+
     def to_dict(self) -> dict[str, Any]:
-        """The JSON contract: SI values, units pint can parse, strings with unit null; ``files`` when it read any."""
+        """The JSON contract: SI values, units pint can parse, strings with unit null; ``files`` when it read any.
+
+        ``series`` holds every curve as computed (SI values, a non-finite point as null).
+        """
         return {
             "check": self.check,
             "inputs": {name: {"text": typed.text, "value": typed.value, "unit": typed.unit}
                        for name, typed in self.inputs.items()},
             "results": {name: {"value": value.si(), "unit": None if value.is_word else si_unit(value.kind)}
                         for name, value in self.values.items()},
+            "series": {name: {"values": finite_list(values), "unit": self.series_unit(name)}
+                       for name, values in self.series.items()},
             "flags": [{"level": flag.level, "text": flag.text} for flag in self.flags],
             "references": [{"method": ref.method, "source": ref.source} for ref in self.references],
             "caution": self.caution,

@@ -114,12 +114,16 @@ class CheckSpec:
     def demo_texts(self) -> dict[str, str]:
         return {f.name: f.default for f in self.fields}
 
-    def series_kind(self, name: str) -> str:
-        """Physical kind of the curve ``name``; KeyError when the check declares no such curve."""
+    def curve(self, name: str) -> Series:
+        """The declared curve ``name``; KeyError when the check declares no such curve."""
         for curve in self.series:
             if curve.name == name:
-                return curve.kind
+                return curve
         raise KeyError(f"{self.id} declares no series {name!r}")
+
+    def series_kind(self, name: str) -> str:
+        """Physical kind of the curve ``name``; KeyError when the check declares no such curve."""
+        return self.curve(name).kind
 
     def read(self, texts: Mapping[str, str], system: str = "si") -> tuple[Inputs, dict[str, InputError]]:
         """Read every field; return what was read and the errors by field name.

@@ -76,12 +76,12 @@ def test_decay_record_has_file_digest_curves_and_ascii_charts(tmp_path, system):
     assert text.index("### Curves") < text.index("### Charts") < text.rindex("Caution: " + decay.SPEC.caution)
     data = json.loads(json_path.read_text())
     assert data["project"] == project
-    series = data["series"]["decay"]
+    series = data["checks"][0]["series"]
     result = outcome.result
     assert set(series) == set(result.series)
     for name, values in result.series.items():
         assert series[name]["values"] == pytest.approx(values.tolist())  # every point, SI
-    assert series["signal"]["unit"] == "m/s^2" and series["signal"]["against"] == "time"
+    assert series["signal"]["unit"] == "m/s^2"
 
 
 def test_check_without_curves_or_files_has_no_such_sections():
@@ -92,7 +92,7 @@ def test_check_without_curves_or_files_has_no_such_sections():
     text = markdown(entries, "si", time.localtime())
     assert "### Curves" not in text and "### Charts" not in text and "### Files read" not in text
     assert "- Project: (not given)" in text
-    assert as_json(entries, time.localtime())["series"] == {}
+    assert as_json(entries, time.localtime())["checks"][0]["series"] == {}
 
 
 def test_a_chart_that_fails_is_said_in_the_record(monkeypatch):

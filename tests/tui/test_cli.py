@@ -13,8 +13,9 @@ import numpy as np
 import pint
 import pytest
 
-from fieldmode.calc.checks import SPECS
+from fieldmode.calc.checks import CHECK_IDS, SPECS
 from fieldmode.calc.demo import GROUND_MOTION, HEEL_DROP, demo_file
+from fieldmode.calc.framework.kinds import KINDS
 from fieldmode.tui.cli import main
 
 
@@ -76,7 +77,7 @@ def test_sdof_json_contract(capsys: pytest.CaptureFixture[str]) -> None:
     code, out, _ = run(capsys, "sdof", "--mass", "50 kip", "--stiffness", "45 kip/in", "--json")
     assert code == 0
     data = json.loads(out)
-    assert set(data) == {"check", "inputs", "results", "flags", "references", "caution"}
+    assert set(data) == {"check", "inputs", "results", "series", "flags", "references", "caution"}
     assert data["inputs"]["mass"]["text"] == "50 kip"
     assert data["results"]["regime"] == {"value": "undamped", "unit": None}
     registry = pint.UnitRegistry()
@@ -520,3 +521,104 @@ def test_an_unknown_demo_name_is_one_line_and_status_2(capsys: pytest.CaptureFix
     code, out, err = run(capsys, "decay", "demo:floor.csv")
     assert code == 2 and out == ""
     assert err.count("\n") == 1 and "no demo record 'floor.csv'" in err and "demo:heel_drop_demo.csv" in err
+
+
+def demo_argv(spec) -> list[str]:  # noqa: ANN001
+    """A check's command line with every demo text given."""
+    argv = [spec.id]
+    for field in spec.fields:
+        if field.default:
+            argv += [field.default] if field.positional else [field.option, field.default]
+    return argv
+
+
+@pytest.mark.parametrize("command", [[], *([check_id] for check_id in CHECK_IDS)],
+                         ids=lambda command: " ".join(command) or "fieldmode")
+def test_help_of_fieldmode_and_of_every_check(capsys: pytest.CaptureFixture[str], command: list[str]) -> None:
+    """argparse %-formats help: a '5 %' in a field's help must not turn --help into an internal fault."""
+    code, out, err = run(capsys, *command, "--help")
+    assert code == 0, err
+    assert out.startswith("usage: fieldmode") and err == ""
+    if command:
+        assert "--csv FILE" in out and "--overwrite" in out
+        for field in load_spec(command[0]).fields:
+            assert (field.name if field.positional else field.option) in out
+
+
+def load_spec(check_id: str):  # noqa: ANN201
+    return next(spec for spec in SPECS if spec.id == check_id)
+
+
+def test_no_field_takes_an_option_every_check_has() -> None:
+    """The options the command line adds to every check (--json, --csv, ...) are not field names."""
+    generic = {"--json", "--csv", "--overwrite", "--units", "--help", "--version"}
+    for spec in SPECS:
+        assert not generic & {field.option for field in spec.fields}, spec.id
+
+
+def test_percent_signs_reach_the_help_as_typed(capsys: pytest.CaptureFixture[str]) -> None:
+    code, out, _ = run(capsys, "isolate", "--help")
+    assert code == 0
+    assert "rubber about 5 %" in " ".join(out.split()) and "%%" not in out
+
+
+@pytest.mark.parametrize("spec", SPECS, ids=lambda spec: spec.id)
+def test_every_check_gives_its_curves_in_json(capsys: pytest.CaptureFixture[str], spec) -> None:  # noqa: ANN001
+    code, out, _ = run(capsys, *demo_argv(spec), "--json")
+    assert code == 0
+    series = json.loads(out)["series"]
+    result = spec.evaluate({field.name: field.default for field in spec.fields if field.default})
+    assert list(series) == list(result.series)
+    registry = pint.UnitRegistry()
+    for name, curve in series.items():
+        assert set(curve) == {"values", "unit"}
+        assert len(curve["values"]) == len(result.series[name]), name
+        assert curve["values"] == pytest.approx(result.series[name].tolist(), rel=1e-15), name
+        kind = KINDS[result.series_kinds[name]]
+        assert curve["unit"] == (kind.si or "1"), name
+        quantity = registry.Quantity(1.0, curve["unit"])  # every unit is one pint can read back
+        assert quantity.check(kind.dimension) if kind.dimension else quantity.dimensionless, name
+
+
+def test_json_curves_are_si_whatever_the_units(capsys: pytest.CaptureFixture[str]) -> None:
+    _, si, _ = run(capsys, "sdof", "--mass", "9.6 t", "--stiffness", "42 kN/mm", "--json")
+    _, us, _ = run(capsys, "sdof", "--mass", "9.6 t", "--stiffness", "42 kN/mm", "--json", "--units", "us")
+    assert json.loads(si)["series"] == json.loads(us)["series"]
+    assert json.loads(si)["series"]["displacement"]["unit"] == "m"
+    assert json.loads(si)["series"]["displacement"]["values"][0] == pytest.approx(0.001)  # 1 mm start
+
+
+SPECTRUM_AT = ["spectrum", str(demo_file(GROUND_MOTION)), "--signal-unit", "g", "--periods", "0.2, 0.5, 1 s"]
+
+
+def table_rows(out: str) -> list[list[str]]:
+    lines = out.splitlines()
+    start = lines.index("Curves by period") + 1
+    return [line.split() for line in lines[start:lines.index("", start)]]
+
+
+def test_periods_typed_as_a_list_give_a_table_after_the_results(capsys: pytest.CaptureFixture[str]) -> None:
+    code, out, _ = run(capsys, *SPECTRUM_AT)
+    assert code == 0
+    assert out.index("Results") < out.index("Curves by period") < out.index("Method")
+    rows = table_rows(out)
+    assert rows[0] == ["period", "sd", "sv", "psv", "psa", "total_acceleration"]
+    assert rows[1] == ["s", "mm", "mm/s", "mm/s", "m/s^2", "m/s^2"]
+    assert [row[0] for row in rows[2:]] == ["0.2000", "0.5000", "1.000"]
+    _, json_out, _ = run(capsys, *SPECTRUM_AT, "--json")
+    series = json.loads(json_out)["series"]
+    assert [float(row[4]) for row in rows[2:]] == pytest.approx(series["psa"]["values"], rel=5e-4)
+
+
+def test_the_table_follows_the_units_and_carries_the_overlay(capsys: pytest.CaptureFixture[str]) -> None:
+    code, out, _ = run(capsys, *SPECTRUM_AT, "--ground-type", "C", "--design-ground-acceleration", "0.16 g",
+                       "--units", "us")
+    assert code == 0
+    rows = table_rows(out)
+    assert rows[0][-1] == "design_psa"
+    assert rows[1] == ["s", "in", "in/s", "in/s", "g", "g", "g"]
+
+
+def test_a_period_grid_gives_no_table(capsys: pytest.CaptureFixture[str]) -> None:
+    code, out, _ = run(capsys, "spectrum", str(demo_file(GROUND_MOTION)), "--signal-unit", "g")
+    assert code == 0 and "Curves by" not in out

@@ -10,9 +10,9 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from fieldmode.calc.checks import BY_ID, SPECS
+from fieldmode.calc.checks import SPECS
 from fieldmode.calc.framework.kinds import KINDS
-from fieldmode.tui.record_curves import MAX_ROWS, curves_json, kept_rows, table_markdown, tables
+from fieldmode.tui.record_curves import MAX_ROWS, kept_rows, table_markdown, tables
 
 UNITS = pint.UnitRegistry()
 
@@ -86,14 +86,3 @@ def test_every_curve_is_in_a_table_of_at_most_the_row_limit_with_its_largest_val
                 assert np.nanmax(cells) * scale == pytest.approx(finite.max(), rel=5e-4, abs=1e-12)
                 assert np.nanmin(cells) * scale == pytest.approx(finite.min(), rel=5e-4, abs=1e-12)
     assert shown == set(result.series), set(result.series) - shown
-
-
-def test_curves_json_has_every_point_in_si() -> None:
-    spec = BY_ID["spectrum"]
-    result = spec.evaluate(spec.demo_texts())
-    data = curves_json(spec, result)
-    assert set(data) == set(result.series)
-    for name, values in result.series.items():
-        assert data[name]["values"] == np.asarray(values).tolist()
-    assert data["psa"]["unit"] == "m/s^2" and data["psa"]["against"] == "period"
-    assert data["period"]["against"] is None and data["sd"]["unit"] == "m"
