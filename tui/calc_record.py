@@ -10,6 +10,7 @@ from __future__ import annotations
 
 import json
 import math
+import os
 import time
 from collections.abc import Mapping, Sequence
 from dataclasses import dataclass
@@ -43,6 +44,16 @@ class Entry:
 def default_name(scope: str, when: time.struct_time | None = None) -> str:
     """Suggested file name in the current folder, e.g. 'fieldmode-sdof-2026-05-04.md'."""
     return f"fieldmode-{scope}-{time.strftime('%Y-%m-%d', when or time.localtime())}.md"
+
+
+def record_target(text: str) -> Path:
+    """The path a typed record name stands for ('~' expanded); ValueError for a name that is a folder
+    ('.', '..', '/', '~', 'notes/'), which would otherwise write '..md' or '$HOME.md' one folder up."""
+    expanded = os.path.expanduser(text.strip())
+    path = Path(expanded)
+    if expanded.endswith(("/", os.sep)) or path.name in ("", ".", "..") or path.is_dir():
+        raise ValueError(f"{text.strip()} is a folder: give a file name, e.g. {Path(expanded, 'record')}")
+    return path
 
 
 def record_paths(path: Path) -> tuple[Path, Path]:

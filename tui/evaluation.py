@@ -15,6 +15,7 @@ from fieldmode.calc.demo import demo_path
 from fieldmode.calc.framework.result import Result
 from fieldmode.calc.framework.spec import CheckSpec, Field
 from fieldmode.calc.framework.units import InputError
+from fieldmode.calc.records.layout import RecordError
 from fieldmode.tui.present import reading_text
 
 
@@ -75,15 +76,21 @@ def evaluate_guarded(spec: CheckSpec, texts: Mapping[str, str], system: str) -> 
 
 
 def field_of_error(spec: CheckSpec, error: InputError) -> Field | None:
-    """The field an InputError is about, from the label it names (list items: 'Label #3')."""
+    """The field an InputError is about, from the label it names (list items: 'Label #3'); a record
+    that cannot be read is about the path field it was typed in."""
     for spec_field in spec.fields:
         if error.field == spec_field.label or error.field.startswith(spec_field.label + " #"):
             return spec_field
+    if isinstance(error, RecordError):
+        paths = [spec_field for spec_field in spec.fields if spec_field.kind == "path"]
+        return paths[0] if len(paths) == 1 else None
     return None
 
 
 def _problem(spec_field: Field, error: InputError) -> str:
     """The error message without the field's label in front (the label is beside it)."""
+    if isinstance(error, RecordError):
+        return f"line {error.line}: {error.problem}" if error.line else error.problem
     message = str(error)
     prefix = spec_field.label + ": "
     return message[len(prefix):] if message.startswith(prefix) else message

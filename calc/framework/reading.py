@@ -71,7 +71,7 @@ def _example(spec_field: Field) -> str:
     if spec_field.kind == "choice":
         return " | ".join(spec_field.choices)
     if spec_field.kind == "path":
-        return "'decay.csv'"
+        return f"{spec_field.default!r}" if spec_field.default else "'record.csv'"
     if spec_field.kind == "text":
         return ""
     return example_of((spec_field.kind, *spec_field.other_kinds))
@@ -83,7 +83,7 @@ def read_field(spec_field: Field, text: str) -> Reading | tuple[Reading, ...] | 
         return _read_choice(spec_field, text)
     if spec_field.kind == "path":
         if len(text) > MAX_PATH_TEXT or "\0" in text:
-            raise InputError(spec_field.label, text, "not a usable path", "'decay.csv'")
+            raise InputError(spec_field.label, text, "not a usable path", _example(spec_field))
         return text
     if spec_field.kind == "text":
         if len(text) > MAX_LIST_TEXT or not text.isprintable():

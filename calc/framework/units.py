@@ -33,6 +33,9 @@ MAX_TEXT = MAX_QUANTITY_TEXT
 
 MAX_MAGNITUDE = 1e15
 """Largest magnitude accepted, in the typed unit; beyond it nothing physical is meant."""
+MIN_MAGNITUDE = 1e-15
+"""Smallest magnitude other than zero accepted, in the typed unit: below it a value is a slip
+(and near 1e-308 it would underflow to zero and be computed as nothing)."""
 
 _NUMBER = re.compile(r"^\s*([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d{1,3})?)\s*(.*?)\s*$")
 _UNIT_CHARS = re.compile(r"^[A-Za-z0-9_/*. %()^\-]*$")
@@ -44,6 +47,15 @@ _MIL = re.compile(r"\bmils?\b")
 """The mil of machine amplitudes is 0.001 in (NIST SP 811, B.8); pint's own mil is an angle
 (pi/32000 rad), so the word is rewritten as pint's thou before pint parses a unit."""
 MIL_NOTE = "mil read as 0.001 in"
+MIN_SI, MAX_SI = 1e-200, 1e200
+"""Range of SI magnitudes (other than zero) the arithmetic can use without underflow or overflow."""
+_MILLI_G = re.compile(r"\b(mg|milli-g|millig)\b")
+"""Milli-g, 0.001 standard gravity, in an acceleration (pint alone would read mg as milligram)."""
+MILLI_G_NOTE = "mg read as milli-g = 0.001 g, not milligram"
+_DASHES = "\u2212\u2010\u2011\u2012\u2013\u2014\ufe63\uff0d"
+"""Unicode minus signs and dashes that look like '-'."""
+_SPACED_DIGITS = re.compile(r"\d[\s\u00a0\u2009\u202f\u2007\u2008']\d")
+_ANGLES = ("radian", "revolution", "degree", "turn", "arcminute", "arcsecond", "gradian")
 
 # Rotational speeds are cycles per time: pint's rpm is 2*pi rad/min, so they are
 # rewritten before pint sees them (1450 rpm -> 24.17 Hz, not 151.8).
@@ -105,11 +117,14 @@ def read(text: str, kind: str, field: str = "", default_unit: str | None = None,
         raise InputError(name, text, f"longer than {MAX_TEXT} characters", spec.example)
     match = _NUMBER.match(text.translate(_SUPERSCRIPTS))
     if match is None:
-        raise InputError(name, text, f"expected a number and a unit of {spec.label}", spec.example)
+        raise InputError(name, text, _unreadable(text, spec), spec.example)
     number_text, unit_text = match.groups()
+    if unit_text[:1].isdigit() and not _UNIT_START.match(unit_text):  # '1 450 kg': digits grouped by a space
+        raise InputError(name, text, _unreadable(text, spec), spec.example)
     magnitude = float(number_text)
-    if not math.isfinite(magnitude) or abs(magnitude) > MAX_MAGNITUDE:
-        raise InputError(name, text, "number out of range", spec.example)
+    if not math.isfinite(magnitude) or not (magnitude == 0 or MIN_MAGNITUDE <= abs(magnitude) <= MAX_MAGNITUDE):
+        raise InputError(name, text, f"number out of range (0, or {MIN_MAGNITUDE:g} to {MAX_MAGNITUDE:g} "
+                         "in the unit typed)", spec.example)
     if not unit_text:
         unit_text = default_unit or spec.si
         plain = spec.ratio and not unit_text  # a ratio field whose bare number has no unit of its own
@@ -121,6 +136,15 @@ def read(text: str, kind: str, field: str = "", default_unit: str | None = None,
     if spec.integer and not float(reading.quantity.to("").magnitude).is_integer():
         raise InputError(name, text, "expected a whole number", spec.example)
     return reading
+
+
+def _unreadable(text: str, spec: Kind) -> str:
+    """Why ``text`` is not a number and a unit, with a hint for characters that only look right."""
+    if any(dash in text for dash in _DASHES):
+        return "a dash or Unicode minus is not a minus sign: type the ASCII '-'"
+    if _SPACED_DIGITS.search(text):
+        return "write the number without a space or separator between its digits (1450, not 1 450)"
+    return f"expected a number and a unit of {spec.label}"
 
 
 def read_any(text: str, kinds: tuple[str, ...], field: str = "", default_unit: str | None = None) -> Reading:
@@ -153,13 +177,19 @@ def _read_unit(text: str, name: str, magnitude: float, unit_text: str, spec: Kin
     """Attach ``unit_text`` to ``magnitude`` for a field of kind ``spec``."""
     if "," in unit_text:
         raise InputError(name, text, "a comma is ambiguous here: write 1450 or 1.45", spec.example)
+    if unit_text.count("%") > 1:
+        raise InputError(name, text, "write one % sign (5 % is 0.05)", spec.example)
     unit_text = _COMMON_ALIASES.get(unit_text, unit_text)
     note = ""
     if spec.name in ("frequency", "angular_frequency") and unit_text.lower() in _CYCLIC_ALIASES:
         unit_text = _CYCLIC_ALIASES[unit_text.lower()]
     if spec.name == "acceleration":
-        unit_text = re.sub(r"\b(g|G|gn)\b", "g0", unit_text)
+        if _MILLI_G.search(unit_text):
+            note = MILLI_G_NOTE
+        unit_text = re.sub(r"\b(g|G|gn)\b", "g0", _MILLI_G.sub("mg0", unit_text))
     units = _safe_units(text, name, unit_text, spec)
+    if _has_angle(units) and spec.name not in ("angle", "frequency", "angular_frequency"):
+        raise InputError(name, text, f"an angle is not a {spec.label}", spec.example)
     quantity = Q_(magnitude, units)
     angular = bool(_ANGULAR.search(unit_text))
     if spec.name == "frequency" and angular:
@@ -171,8 +201,12 @@ def _read_unit(text: str, name: str, magnitude: float, unit_text: str, spec: Kin
     if spec.name == "frequency" and not angular and _has_angle(units):
         raise InputError(name, text, "write a rotational speed as rpm, rev/s or Hz", spec.example)
     if quantity.check(spec.dimension):
-        return Reading(text, quantity, spec.name, note or _pound_note(unit_text, spec) or _mil_note(unit_text))
-    return _read_other_dimension(text, name, quantity, unit_text, spec)
+        reading = Reading(text, quantity, spec.name, note or _pound_note(unit_text, spec) or _mil_note(unit_text))
+    else:
+        reading = _read_other_dimension(text, name, quantity, unit_text, spec)
+    if magnitude != 0 and not MIN_SI <= abs(reading.si) <= MAX_SI:
+        raise InputError(name, text, "number out of range once in SI units", spec.example)
+    return reading
 
 
 def _read_other_dimension(text: str, name: str, quantity: pint.Quantity, unit_text: str,
@@ -195,7 +229,7 @@ def _pound_note(unit_text: str, spec: Kind) -> str:
     """Say how ambiguous US mass units were read."""
     if spec.name.startswith("mass") and re.search(r"\blb\b", unit_text):
         return "lb read as pound-mass (write lbf for a weight)"
-    if re.search(r"\bton\b", unit_text):
+    if re.search(r"\btons?\b", unit_text):
         return "ton read as US short ton, 907.2 kg (write t for a tonne)"
     return ""
 
@@ -206,7 +240,7 @@ def _mil_note(unit_text: str) -> str:
 
 
 def _has_angle(units: pint.Unit) -> bool:
-    return any(part in ("radian", "revolution", "degree", "turn") for part in units._units)
+    return any(part in _ANGLES for part in units._units)
 
 
 def _rad_free_factor(units: pint.Unit) -> pint.Quantity:
@@ -329,7 +363,7 @@ def kind_of_text(text: str) -> str:
     unit_text = _COMMON_ALIASES.get(match.group(2), match.group(2))
     if unit_text.lower() in _CYCLIC_ALIASES:
         return "frequency"
-    if re.search(r"\b(g|G|gn)\b", unit_text):
+    if re.search(r"\b(g|G|gn)\b", unit_text) or _MILLI_G.search(unit_text):
         return "acceleration"
     if _ANGULAR.search(unit_text) and "/" in unit_text:
         return "angular_frequency"

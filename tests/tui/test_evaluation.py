@@ -81,4 +81,30 @@ def test_a_demo_name_reads_as_the_shipped_record_and_a_wrong_one_is_said():
     assert outcome.result is not None and outcome.result.files[0].size == demo_file(HEEL_DROP).stat().st_size
     wrong = evaluate(decay, {**decay.demo_texts(), "file": "demo:heel.csv"}, "si")
     assert wrong.notes["file"] == "no such demo record"
-    assert "no demo record 'heel.csv'" in wrong.problem and "demo:heel_drop_demo.csv" in wrong.problem
+    assert "no demo record 'heel.csv'" in wrong.errors["file"] and "demo:heel_drop_demo.csv" in wrong.errors["file"]
+
+
+BAD_LINE_62 = "t,a\n" + "".join(f"{i / 100},{i % 7}\n" for i in range(60)) + "0.6,x\n"
+
+
+@pytest.mark.parametrize(("content", "said"), [(None, "no such file"), (BAD_LINE_62, "line 62"),
+                                               ("t,a\n0,1\n", "samples")])
+def test_a_record_that_cannot_be_read_is_said_beside_its_path_field(tmp_path, content, said):
+    from fieldmode.calc.checks import decay, spectrum
+
+    path = tmp_path / "rec.csv"
+    if content is not None:
+        path.write_text(content)
+    for spec in (decay.SPEC, spectrum.SPEC):
+        outcome = evaluate(spec, {**spec.demo_texts(), "file": str(path)}, "si")
+        assert outcome.result is None and outcome.problem == ""
+        assert said in outcome.errors["file"]
+        assert not outcome.errors["file"].startswith("record file")  # the label is beside it already
+
+
+def test_a_path_field_gives_its_own_check_as_the_example():
+    from fieldmode.calc.checks import spectrum
+
+    outcome = evaluate(spectrum.SPEC, {**spectrum.SPEC.demo_texts(), "file": ""}, "si")
+    assert "decay.csv" not in outcome.errors["file"]
+    assert "demo:ground_motion_demo.csv" in outcome.errors["file"]

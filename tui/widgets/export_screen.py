@@ -2,7 +2,6 @@
 
 from __future__ import annotations
 
-import os
 from collections.abc import Callable, Mapping
 from pathlib import Path
 
@@ -14,7 +13,7 @@ from textual.containers import Horizontal, Vertical
 from textual.content import Content
 from textual.widgets import Input, RadioButton, RadioSet, Static
 
-from fieldmode.tui.calc_record import MAX_PROJECT_TEXT, PROJECT_LABELS, record_paths
+from fieldmode.tui.calc_record import MAX_PROJECT_TEXT, PROJECT_LABELS, record_paths, record_target
 from fieldmode.tui.widgets.confirm_screen import ConfirmScreen
 from fieldmode.tui.widgets.dialog import Dialog
 
@@ -100,7 +99,11 @@ class ExportScreen(Dialog[str | None]):
         if not text:
             self._problem("give a file name")
             return
-        path = Path(os.path.expanduser(text))
+        try:
+            path = record_target(text)
+        except ValueError as error:
+            self._problem(str(error))
+            return
         existing = [p for p in record_paths(path) if p.exists()]
         if existing:
             names = " and ".join(str(p) for p in existing)

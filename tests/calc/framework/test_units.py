@@ -287,3 +287,66 @@ def test_rows_of_a_two_dimensional_array() -> None:
 def test_whole_numbers_and_scalars() -> None:
     assert format_value(np.array([2.0, 3.0]), "count") == "2, 3"
     assert format_value(24.17, "frequency") == "24.17 Hz"
+
+
+# Refusals of what cannot be meant (each failed before its fix).
+
+@pytest.mark.parametrize("text", ["5 %%", "5 % %", "5 %%%"])
+def test_percent_of_percent_is_refused(text: str) -> None:
+    with pytest.raises(InputError, match="one % sign"):
+        read(text, "ratio", "Damping ratio")
+
+
+@pytest.mark.parametrize("text", ["30 deg", "1 turn", "0.5 rad", "2 revolution", "10 degree"])
+def test_angles_are_not_ratios(text: str) -> None:
+    with pytest.raises(InputError, match="an angle is not a ratio"):
+        read(text, "ratio", "Damping ratio")
+
+
+def test_an_angle_field_still_reads_degrees() -> None:
+    # Source: 180 deg = pi rad (SI Brochure, 9th ed., Table 8)
+    assert read("30 deg", "angle").quantity.to("rad").magnitude == pytest.approx(math.pi / 6)
+
+
+@pytest.mark.parametrize(("text", "kind"), [("1e-320 N/m", "stiffness"), ("1e-300 kg", "mass"),
+                                            ("1e-20 mm", "length"), ("-1e-310", "ratio")])
+def test_values_that_underflow_are_refused_not_read_as_zero(text: str, kind: str) -> None:
+    # Common practice (no source): nothing on site is 1e-15 of a unit; such text is a slip, never a value
+    with pytest.raises(InputError, match="out of range"):
+        read(text, kind, "Stiffness")
+
+
+def test_zero_is_still_zero() -> None:
+    assert read("0 %", "ratio").si == 0.0 and read("0", "ratio").si == 0.0
+
+
+@pytest.mark.parametrize("text", ["10 tons", "10 ton", "3 tons/m"])
+def test_tons_are_read_as_short_tons_and_say_so(text: str) -> None:
+    kind = "mass_per_length" if "/" in text else "mass"
+    reading = read(text, kind)
+    assert "short ton" in reading.note
+    # Source: NIST SP 811 (2008), B.9: ton (short, 2000 lb) = 907.18474 kg
+    assert reading.si == pytest.approx(float(text.split()[0]) * 907.18474)
+
+
+@pytest.mark.parametrize(("text", "hint"), [("\u22125 %", "ASCII '-'"), ("\u20135", "ASCII '-'"),
+                                            ("1\u2009450 kg", "without a space"), ("1\u00a0450 kg", "without a space"),
+                                            ("2\u202f000 kg", "without a space")])
+def test_unicode_minus_and_spaces_inside_numbers_get_a_hint(text: str, hint: str) -> None:
+    kind = "ratio" if "%" in text or text.endswith("5") else "mass"
+    with pytest.raises(InputError, match=hint):
+        read(text, kind, "Field")
+
+
+@pytest.mark.parametrize(("text", "factor"), [("3 mg", 3e-3), ("25 milli-g", 25e-3)])
+def test_mg_in_an_acceleration_field_is_milli_g(text: str, factor: float) -> None:
+    reading = read(text, "acceleration")
+    # Source: CGPM 1901, standard acceleration of gravity g_n = 9.80665 m/s^2 (exact)
+    assert reading.si == pytest.approx(factor * 9.80665)
+    assert "milli-g" in reading.note
+
+
+def test_convert_reads_mg_as_milli_g_like_the_fields() -> None:
+    quantity, note = convert("2 mg", "m/s^2")
+    assert quantity.magnitude == pytest.approx(2e-3 * 9.80665)  # Source: CGPM 1901, g_n exact
+    assert "milli-g" in note

@@ -244,3 +244,27 @@ def test_record_of_the_demo_decay_says_the_short_name_not_the_install_path(make_
     assert "| demo:heel_drop_demo.csv |" in markdown
     assert str(demo_file(HEEL_DROP).parent) not in markdown
     assert str(demo_file(HEEL_DROP).parent) not in (tmp_path / "work" / "demo-decay.json").read_text()
+
+
+@pytest.mark.parametrize("name", [".", "..", "/", "~", "~/", "rec/", "./.."])
+def test_names_that_are_folders_are_refused_in_the_dialog(make_app, tmp_path, monkeypatch, name):
+    """'..' once wrote '...md' and '~' wrote '$HOME.md' one folder up: a record needs a file name."""
+    home = tmp_path / "home" / "someone"
+    home.mkdir(parents=True)
+    monkeypatch.setenv("HOME", str(home))
+    (tmp_path / "work" / "rec").mkdir(parents=True, exist_ok=True)
+
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await _export(app, pilot, name)
+            assert isinstance(app.screen, ExportScreen)
+            problem = str(app.screen.query_one("#record-problem").content)
+            assert "is a folder: give a file name" in problem
+            assert app.screen.query_one("#record-path").value == name
+
+    asyncio.run(scenario())
+    written = [path for path in tmp_path.rglob("*.md")] + [path for path in tmp_path.rglob("*.json")
+                                                            if "state" not in path.parts]
+    assert written == []
