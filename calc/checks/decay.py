@@ -65,7 +65,7 @@ def compute(inputs: Inputs) -> Result:
     values = _values(found, kind)
     values["sample_rate"] = quantity("Sample rate", "frequency", record.sample_rate)
     values["samples"] = quantity("Samples", "count", float(len(record.signal)))
-    notes = tuple(Flag("info", f"{record.channel_name}: {note}") for note in record.notes)
+    notes = tuple(Flag("info", note) for note in record.notes)
     return inputs.result(values, series=found.series, flags=notes + found.flags, references=REFERENCES,
                          signal_kind=kind, files=(InputFile(path, record.source.size, record.source.sha256),))
 

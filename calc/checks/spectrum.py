@@ -175,7 +175,7 @@ def _record(inputs: Inputs) -> tuple[np.ndarray, np.ndarray, float, list[Flag], 
         raise inputs.error("file", f"time step {dt:.3g} s: an accelerogram needs {MIN_STEP:g} s to {MAX_STEP:g} s")
     if np.max(np.abs(record.signal)) > MAX_ACCELERATION:
         raise inputs.error("file", f"accelerations above {MAX_ACCELERATION:g} m/s^2: check the signal unit")
-    notes = [Flag("info", f"{record.channel_name}: {note}") for note in record.notes]
+    notes = [Flag("info", note) for note in record.notes]
     return record.time, record.signal, dt, notes, InputFile(path, record.source.size, record.source.sha256)
 
 

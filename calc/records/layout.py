@@ -5,6 +5,8 @@ Used by :mod:`fieldmode.calc.records.read`; only the first :data:`HEAD_BYTES` of
 
 from __future__ import annotations
 
+import itertools
+
 import re
 from dataclasses import dataclass
 
@@ -129,17 +131,28 @@ def _no_data(lines: list[str]) -> str:
         return f"no rows of numbers in the first {MAX_HEADER_LINES} lines: remove header or comment lines"
     if not content:
         return "only comments or blank lines near the start: no rows of numbers"
+    rows = [(index, found) for index, line in enumerate(lines[:MAX_HEADER_LINES]) if (found := _layout_of(line))]
+    for (first, (one, _)), (second, (other, _)) in itertools.pairwise(rows):
+        if one != other:
+            return (f"line {first + 1} is separated by {_separator_name(one)} and line {second + 1} by "
+                    f"{_separator_name(other)}: use one separator throughout")
     return "no rows of numbers found near the start of the file"
+
+
+def _separator_name(delimiter: str | None) -> str:
+    return "blanks" if delimiter is None else {"\t": "tabs"}.get(delimiter, repr(delimiter))
 
 
 def _data_start(lines: list[str]) -> tuple[int, str | None, int] | None:
     """Index of the first data line, its separator and its number of cells (None: no data found)."""
     run: list[tuple[int, tuple[str | None, int]]] = []
+    changed = False
     for index, line in enumerate(lines):
         if not cells_of(line, None):
             continue
         found = _layout_of(line)
         if found is None or (run and found != run[0][1]):
+            changed = changed or (found is not None and bool(run))
             run = []
             if found is None and index >= MAX_HEADER_LINES:
                 break
@@ -147,7 +160,7 @@ def _data_start(lines: list[str]) -> tuple[int, str | None, int] | None:
             run.append((index, found))
         if len(run) == RUN_LINES:
             break
-    if not run or (len(run) < RUN_LINES and run[-1][0] != _last_content(lines)):
+    if not run or (len(run) < RUN_LINES and (changed or run[-1][0] != _last_content(lines))):
         return None
     start, (delimiter, width) = run[0]
     for index in range(start - 1, -1, -1):

@@ -237,7 +237,7 @@ def _signal_unit(text: str | None, name: str, notes: list[str]) -> tuple[str, fl
     if text:
         kind, factor = signal_unit_scale(text)
         if text.strip().lower() in MILLI_G:
-            notes.append(f"{text.strip()} read as milli-g, 0.001 g")
+            notes.append(f"signal {name!r}: {text.strip()} read as milli-g, 0.001 g")
         return kind, factor
     match = _UNIT_IN_NAME.search(name)
     if match:
@@ -247,7 +247,7 @@ def _signal_unit(text: str | None, name: str, notes: list[str]) -> tuple[str, fl
             pass
         else:
             milli = " (milli-g, 0.001 g)" if match.group(1).strip().lower() in MILLI_G else ""
-            notes.append(f"signal unit {match.group(1)!r} taken from the header{milli}")
+            notes.append(f"signal {name!r}: unit {match.group(1)!r} taken from the header{milli}")
             return kind, factor
-    notes.append("signal unit not given: amplitudes as in the file")
+    notes.append(f"signal {name!r}: no unit given, amplitudes as in the file")
     return "", 1.0

@@ -57,12 +57,12 @@ def seconds_per_unit(name: str, shown: str) -> tuple[float, str]:
     if not unit and word in TIME_UNITS:
         unit = word
     if not unit:
-        return 1.0, "time in s (no unit in its header)"
+        return 1.0, f"time column {name!r} read in s (no unit in its header)"
     factor = TIME_UNITS.get(unit) or TIME_UNITS.get(unit.lower())
     if factor is None:
         raise RecordError(shown, f"time column {name!r}: unknown time unit {unit!r} "
                           "(s, ms, us, min or h, e.g. 'time [ms]')")
-    return factor, f"time read in {unit}" if factor != 1.0 else ""
+    return factor, f"time column {name!r} read in {unit}" if factor != 1.0 else ""
 
 
 def uniform(data: bytes, layout: Layout, time: np.ndarray, signals: np.ndarray,

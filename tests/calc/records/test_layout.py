@@ -60,3 +60,12 @@ def test_milli_g_in_a_header_is_a_thousandth_of_standard_gravity(tmp_path: Path,
     assert record.kind == "acceleration" and any("milli-g" in note for note in record.notes)
     given = read_record(tmp_path / "rec.csv", signal_unit="mg")
     np.testing.assert_allclose(given.signal, record.signal)
+
+
+def test_lines_with_different_separators_are_said_not_read_as_one_sample(tmp_path: Path) -> None:
+    """Alternating ';' and ',' rows once gave 'only 1 samples'."""
+    rows = "".join(f"{i / 100:.2f}{';' if i % 2 == 0 else ','}{i % 5}\n" for i in range(200))
+    path = tmp_path / "mixed.csv"
+    path.write_text("t,a\n" + rows)
+    with pytest.raises(RecordError, match="line 2 is separated by ';' and line 3 by ',': use one separator"):
+        read_record(path)

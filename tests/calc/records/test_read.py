@@ -100,7 +100,7 @@ def test_columns_by_name_and_number_and_time_in_ms(tmp_path: Path) -> None:
     # Source: NIST SP 811 (2008), standard gravity 9.80665 m/s^2 exactly
     check_record(by_name, STANDARD_GRAVITY)
     assert by_name.kind == "acceleration" and by_name.channel_name == "ay [g]"
-    assert "time read in ms" in by_name.notes
+    assert any("time column" in note and "read in ms" in note for note in by_name.notes)
     by_number = read_record(path, signal_column=2, signal_unit="mm/s")
     check_record(by_number, -1e-3)
     assert by_number.kind == "velocity"

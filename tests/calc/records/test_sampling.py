@@ -44,5 +44,5 @@ def test_an_unknown_time_unit_is_refused_never_taken_as_seconds(tmp_path: Path, 
 def test_time_names_and_units_are_told_apart() -> None:
     assert all(is_time_name(n) for n in ("time", "t", "Time (s)", "ms", "sec", "t_ms"))
     assert not any(is_time_name(n) for n in ("acc [g]", "ax", "vel_x", "z (mm/s)"))
-    assert seconds_per_unit("time", "f") == (1.0, "time in s (no unit in its header)")
-    assert seconds_per_unit("time [ms]", "f") == (1e-3, "time read in ms")
+    assert seconds_per_unit("time", "f") == (1.0, "time column 'time' read in s (no unit in its header)")
+    assert seconds_per_unit("time [ms]", "f") == (1e-3, "time column 'time [ms]' read in ms")
