@@ -138,6 +138,11 @@ def read(text: str, kind: str, field: str = "", default_unit: str | None = None,
     return reading
 
 
+def _shown(unit_text: str) -> str:
+    """A unit text as an error message quotes it: at most 20 characters (the whole text is quoted after it)."""
+    return unit_text if len(unit_text) <= 20 else unit_text[:17] + "..."
+
+
 def _unreadable(text: str, spec: Kind) -> str:
     """Why ``text`` is not a number and a unit, with a hint for characters that only look right."""
     if any(dash in text for dash in _DASHES):
@@ -222,7 +227,7 @@ def _read_other_dimension(text: str, name: str, quantity: pint.Quantity, unit_te
         as_force = Q_(quantity.magnitude, units)
         if as_force.check(spec.dimension):
             return Reading(text, as_force, spec.name, "lb read as lbf (pound-force)")
-    raise InputError(name, text, f"{unit_text!r} is not a unit of {spec.label}", spec.example)
+    raise InputError(name, text, f"{_shown(unit_text)!r} is not a unit of {spec.label}", spec.example)
 
 
 def _pound_note(unit_text: str, spec: Kind) -> str:
@@ -269,7 +274,7 @@ def _safe_units(text: str, name: str, unit_text: str, spec: Kind) -> pint.Unit:
         return ureg.parse_units(cleaned)
     except (pint.errors.PintError, AttributeError, TypeError, ValueError, SyntaxError,
             KeyError, IndexError, ZeroDivisionError, AssertionError, tokenize.TokenError) as error:
-        raise InputError(name, text, f"unknown unit {unit_text!r}", spec.example) from error
+        raise InputError(name, text, f"unknown unit {_shown(unit_text)!r}", spec.example) from error
 
 
 def format_number(value: float, digits: int = 4) -> str:
@@ -374,4 +379,4 @@ def kind_of_text(text: str) -> str:
             return kind.name
     if Q_(1, units).check(""):
         return "ratio"
-    raise InputError("value", text, f"no conversion known for {unit_text!r}", "'1450 rpm' or '45 kip/in'")
+    raise InputError("value", text, f"no conversion known for {_shown(unit_text)!r}", "'1450 rpm' or '45 kip/in'")

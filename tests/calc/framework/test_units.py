@@ -350,3 +350,11 @@ def test_convert_reads_mg_as_milli_g_like_the_fields() -> None:
     quantity, note = convert("2 mg", "m/s^2")
     assert quantity.magnitude == pytest.approx(2e-3 * 9.80665)  # Source: CGPM 1901, g_n exact
     assert "milli-g" in note
+
+
+def test_a_long_unknown_unit_is_quoted_short_in_the_message() -> None:
+    """A paste of 60 characters once filled six lines of the pane with one error."""
+    with pytest.raises(InputError) as caught:
+        read("9.6 t" + "9" * 55, "mass", "Mass")
+    assert "unknown unit 't9999999999999999...'" in str(caught.value)
+    assert len(str(caught.value)) < 160  # the typed text itself is quoted up to 40 characters
