@@ -6,7 +6,6 @@ Used by :mod:`fieldmode.calc.records.read`; only the first :data:`HEAD_BYTES` of
 from __future__ import annotations
 
 import itertools
-
 import re
 from dataclasses import dataclass
 
