@@ -16,6 +16,7 @@ from textual.widgets import Input, RadioButton, RadioSet, Static
 from fieldmode.tui.calc_record import MAX_PROJECT_TEXT, PROJECT_LABELS, record_paths, record_target
 from fieldmode.tui.widgets.confirm_screen import ConfirmScreen
 from fieldmode.tui.widgets.dialog import Dialog
+from fieldmode.tui.widgets.ordered_input import OrderedInput
 
 Writer = Callable[[Path, str], str]
 """write(path, scope) -> '' when written, else a one-line problem; scope is 'check' or 'session'."""
@@ -54,12 +55,12 @@ class ExportScreen(Dialog[str | None]):
             for name, label in PROJECT_LABELS.items():
                 with Horizontal(classes="record-row"):
                     yield Static(_label(label, False), classes="record-label", id=f"label-{name}")
-                    yield Input(self.project.get(name, ""), id=f"project-{name}", compact=True,
+                    yield OrderedInput(self.project.get(name, ""), id=f"project-{name}", compact=True,
                                 max_length=MAX_PROJECT_TEXT, select_on_focus=False)
             yield Static(Text("  (typed once: the session keeps them for every record)"), classes="dialog-note")
             with Horizontal(classes="record-row"):
                 yield Static(_label(PATH_LABEL, False), classes="record-label", id="label-path")
-                yield Input(self.names["check"], id="record-path", compact=True)
+                yield OrderedInput(self.names["check"], id="record-path", compact=True)
             yield Static(Text("  a .json file with every value in SI is written beside it"), classes="dialog-note")
             with RadioSet(id="record-scope", compact=True):
                 yield ScopeButton("this check", value=True, id="scope-check")

@@ -11,11 +11,10 @@ from textual import events
 from textual.app import ComposeResult
 from textual.suggester import SuggestFromList
 from textual.widget import Widget
-from textual.widgets import Input
 
 from fieldmode.calc.framework.spec import Field
 from fieldmode.tui.printable import printable
-from fieldmode.tui.widgets.dialog import hand_to_dialog
+from fieldmode.tui.widgets.ordered_input import OrderedInput
 from fieldmode.tui.widgets.path_suggester import PathSuggester
 
 INDENT = 2
@@ -26,15 +25,9 @@ DEFAULT_WIDTH = 36
 """Width assumed before the row has been laid out (the field pane at 80 columns)."""
 
 
-class FieldInput(Input):
-    """A text box that keeps a burst of keys in the order typed.
-
-    Textual runs the key bindings of a focused widget only after the key has bubbled up
-    to the app, so when keystrokes arrive together (over SSH they often do) typed
-    characters overtook a Home, Backspace, Tab or F-key typed before them. Here every
-    bound key runs as it arrives, and characters that arrive after a key moved the
-    focus elsewhere follow the focus, into a dialog that key opened too.
-    """
+class FieldInput(OrderedInput):
+    """A field's text box: keys kept in the order typed, every change reported at once, pastes cut
+    to what the field holds with a note."""
 
     def __init__(self, value: str, edited: Callable[[str], None], **options: Any) -> None:
         self._edited: Callable[[str], None] | None = None  # the first value is not an edit
@@ -62,21 +55,6 @@ class FieldInput(Input):
 
     async def _on_key(self, event: events.Key) -> None:
         self.cut = 0  # typed after a paste: the note of the cut paste has served
-        if hand_to_dialog(self, event):  # typed after the key that opened a dialog
-            return
-        focused = self.app.focused
-        if focused is not None and focused is not self:
-            event.stop()
-            event.prevent_default()
-            focused.post_message(events.Key(event.key, event.character))
-            return
-        if not event.is_printable:
-            active = self.screen.active_bindings.get(event.key)
-            if active is not None and active.enabled and not active.binding.priority:
-                event.stop()
-                event.prevent_default()
-                await self.app.run_action(active.binding.action, active.node)
-                return
         await super()._on_key(event)
 
 

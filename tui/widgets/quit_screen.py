@@ -13,6 +13,7 @@ from textual.containers import Vertical
 from textual.widgets import Input, Static
 
 from fieldmode.tui.widgets.dialog import Dialog
+from fieldmode.tui.widgets.ordered_input import OrderedInput
 
 Saver = Callable[[Path], str]
 """save(path) -> '' when the session was written there, else a one-line problem."""
@@ -35,7 +36,7 @@ class QuitScreen(Dialog[bool]):
             yield Static(Text(self.problem))
             yield Static(Text("Enter saves the session to this file and quits; F10 again quits without saving; "
                               "Escape stays."))
-            yield Input(self.suggested, id="quit-path", compact=True)
+            yield OrderedInput(self.suggested, id="quit-path", compact=True)
             yield Static("", id="quit-problem", markup=False)
 
     def on_mount(self) -> None:
