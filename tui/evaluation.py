@@ -77,13 +77,14 @@ def evaluate_guarded(spec: CheckSpec, texts: Mapping[str, str], system: str) -> 
 
 def field_of_error(spec: CheckSpec, error: InputError) -> Field | None:
     """The field an InputError is about, from the label it names (list items: 'Label #3'); a record
-    that cannot be read is about the path field it was typed in."""
+    that cannot be read is about the field its ``about`` names (a column), else the path field."""
     for spec_field in spec.fields:
         if error.field == spec_field.label or error.field.startswith(spec_field.label + " #"):
             return spec_field
     if isinstance(error, RecordError):
+        named = [spec_field for spec_field in spec.fields if spec_field.name == error.about]
         paths = [spec_field for spec_field in spec.fields if spec_field.kind == "path"]
-        return paths[0] if len(paths) == 1 else None
+        return named[0] if named else paths[0] if len(paths) == 1 else None
     return None
 
 

@@ -28,15 +28,20 @@ _CONTROL = re.compile(rb"[\x00-\x08\x0e-\x1a\x1c-\x1f\x7f]")
 
 
 class RecordError(InputError):
-    """A record file that cannot be read as a time series; names the file and the line."""
+    """A record file that cannot be read as a time series; names the file and the line.
 
-    def __init__(self, path: str, problem: str, line: int | None = None) -> None:
+    ``about`` names the field whose text the problem is about when it is not the file itself:
+    'time_column', 'signal_column' or 'sample_rate' (the names of calc.records.columns).
+    """
+
+    def __init__(self, path: str, problem: str, line: int | None = None, about: str = "") -> None:
         where = f", line {line}" if line else ""
         ValueError.__init__(self, f"record file {path!r}{where}: {problem}")
         self.field = "record file"
         self.text = path
         self.problem = problem
         self.line = line
+        self.about = about
 
 
 @dataclass(frozen=True)

@@ -194,7 +194,7 @@ def _column(layout: Layout, wanted: int | str, what: str) -> int:
         if 1 <= number <= layout.width:
             return number - 1
         raise RecordError(layout.shown, f"there is no {what} column {number}: the file has "
-                          f"{layout.width} columns ({listing})")
+                          f"{layout.width} columns ({listing})", about=f"{what}_column")
     lowered = text.lower()
     for candidates in ([n.lower() for n in names], [_bare_name(n).lower() for n in names]):
         if lowered in candidates:
@@ -202,7 +202,7 @@ def _column(layout: Layout, wanted: int | str, what: str) -> int:
     starts = [i for i, n in enumerate(names) if n.lower().startswith(lowered)]
     if len(starts) == 1:
         return starts[0]
-    raise RecordError(layout.shown, f"no {what} column named {text!r} (columns: {listing})")
+    raise RecordError(layout.shown, f"no {what} column named {text!r} (columns: {listing})", about=f"{what}_column")
 
 
 def _bare_name(name: str) -> str:

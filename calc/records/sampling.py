@@ -107,4 +107,4 @@ def agree(given: float, found: float, shown: str) -> None:
     """A sample rate given beside a time column must agree with it: refuse naming both when not."""
     if abs(given - found) > RATE_AGREEMENT * found:
         raise RecordError(shown, f"the sample rate given, {given:.6g} Hz, disagrees with the time column's "
-                          f"{found:.6g} Hz: give one or the other, or correct it")
+                          f"{found:.6g} Hz: give one or the other, or correct it", about="sample_rate")

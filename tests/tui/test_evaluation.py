@@ -108,3 +108,12 @@ def test_a_path_field_gives_its_own_check_as_the_example():
     outcome = evaluate(spectrum.SPEC, {**spectrum.SPEC.demo_texts(), "file": ""}, "si")
     assert "decay.csv" not in outcome.errors["file"]
     assert "demo:ground_motion_demo.csv" in outcome.errors["file"]
+
+
+@pytest.mark.parametrize(("field", "text"), [("time_column", "clock"), ("signal_column", "9"),
+                                             ("sample_rate", "333 Hz")])
+def test_a_column_or_rate_the_record_refuses_is_said_beside_that_field(field, text):
+    from fieldmode.calc.checks import decay
+
+    outcome = evaluate(decay.SPEC, {**decay.SPEC.demo_texts(), field: text}, "si")
+    assert list(outcome.errors) == [field], outcome.errors
