@@ -38,7 +38,7 @@ if TYPE_CHECKING:
 # Dialogs, typical-value tables and the calc record writer are imported when first used: the
 # first frame waits for nothing it does not show.
 
-MAIN_ONLY = {"scroll_results", "own", "previous_check", "next_check", "go", "units", "view", "lookup", "send", "record"}
+MAIN_ONLY = {"scroll_results", "scroll_flags", "own", "previous_check", "next_check", "go", "units", "view", "lookup", "send", "record"}
 """Actions that act on the check on screen, so not while a dialog is open."""
 
 
@@ -68,6 +68,10 @@ class FieldmodeApp(App[int]):
                 tooltip="scroll the results (the fields, in chart view) down a page"),
         Binding("pageup", "scroll_results(-1)", "results up", show=False, id="results.up",
                 tooltip="scroll the results (the fields, in chart view) up a page"),
+        Binding("ctrl+pagedown", "scroll_flags(1)", "flags down", show=False, id="flags.down",
+                tooltip="scroll the flags below the results down a page"),
+        Binding("ctrl+pageup", "scroll_flags(-1)", "flags up", show=False, id="flags.up",
+                tooltip="scroll the flags below the results up a page"),
         Binding("f10,ctrl+q", "quit_saved", "quit", key_display="F10", id="quit", priority=True,
                 tooltip="save the session and quit"),
     ]
@@ -300,6 +304,9 @@ class FieldmodeApp(App[int]):
 
     def action_scroll_results(self, pages: int) -> None:
         self.current_view.scroll_results(pages)
+
+    def action_scroll_flags(self, pages: int) -> None:
+        self.current_view.scroll_flags(pages)
 
     def action_keys(self) -> None:
         from fieldmode.tui.widgets.help_screen import HelpScreen, key_rows

@@ -18,6 +18,7 @@ from fieldmode.tui.widgets.results_view import FlagsList, ResultsTable
 from fieldmode.tui.workspace import Workspace
 
 if TYPE_CHECKING:
+    from fieldmode.calc.framework.result import Flag
     from fieldmode.calc.framework.spec import CheckSpec
     from fieldmode.tui.evaluation import Outcome
     from fieldmode.tui.widgets.chart_view import ChartPane
@@ -29,6 +30,24 @@ THROTTLE = 0.15
 """Seconds: a keystroke after a quiet spell computes at once; further ones within this wait for its end."""
 MOST_ITEMS = 6
 """A list result shows at most this many values in the results table (all in the calc record)."""
+
+
+class Pane(VerticalScroll, inherit_bindings=False):
+    """A scrolled part of a check's pane (fields, results, flags) that takes no keys itself.
+
+    Textual's scroll areas bind PageUp/PageDown and the arrows; the fields' area holds the text box
+    in focus, so it took PageDown before the app could scroll the results with it.
+    """
+
+    def on_resize(self) -> None:
+        self.call_after_refresh(self.show_focused)
+
+    def show_focused(self) -> None:
+        """Scroll the row of the text box in focus (label, box and reading) into view, if it is in here."""
+        focused = self.app.focused
+        row = focused.parent if focused is not None else None
+        if isinstance(row, FieldRow) and row.parent is self:
+            self.scroll_to_widget(row, animate=False, immediate=True)
 
 
 class CheckView(Vertical):
@@ -64,8 +83,9 @@ class CheckView(Vertical):
         self._rows: dict[str, FieldRow] = {}
         self._table = ResultsTable("", classes="results")
         self._flags = FlagsList("", classes="flags")
-        self._fields_box = VerticalScroll(classes="fields", can_focus=False)
-        self._results_box = VerticalScroll(classes="results-box", can_focus=False)
+        self._flags_box = Pane(classes="flags-box", can_focus=False)
+        self._fields_box = Pane(classes="fields", can_focus=False)
+        self._results_box = Pane(classes="results-box", can_focus=False)
         self._right = Vertical(classes="right")
         """The pane's parts, kept: never looked up, so never missed while a burst of keys outruns mounting."""
         self._chart: ChartPane | None = None
@@ -87,7 +107,8 @@ class CheckView(Vertical):
                 yield from self._rows.values()
             with self._right, self._results_box:
                 yield self._table
-        yield self._flags
+        with self._flags_box:
+            yield self._flags
 
     def on_mount(self) -> None:
         self._table.show_problem("computing...")
@@ -169,11 +190,22 @@ class CheckView(Vertical):
         if result is not None:
             self._table.show_rows([(value.label, "\n".join(value_lines(value, outcome.system, MOST_ITEMS)))
                                    for value in result.values.values()])
-            self._flags.show_flags(result.flags)
+            self._show_flags(result.flags)
         else:
             bad = [self.spec.field(name).label for name in outcome.errors]
             self._table.show_problem(outcome.problem or "Fix the field marked ! : " + ", ".join(bad))
-            self._flags.show_flags(())
+            self._show_flags(())
+        self.call_after_refresh(self._fields_box.show_focused)
+
+    def _show_flags(self, flags: tuple[Flag, ...]) -> None:
+        self._flags.show_flags(flags)
+        self._flags_box.display = bool(flags)
+        self.call_after_refresh(self._title_flags)
+
+    def _title_flags(self) -> None:
+        """Say on the flags' border when some are out of view, and which keys scroll them."""
+        box = self._flags_box
+        box.border_title = "more flags: Ctrl+PgDn/PgUp" if box.max_scroll_y > 0 else ""
 
     def _note(self, name: str, outcome: Outcome) -> str:
         note = outcome.notes.get(name, "")
@@ -193,8 +225,11 @@ class CheckView(Vertical):
 
     def scroll_results(self, pages: int) -> None:
         """Scroll the results (or the fields, in chart view) by whole pages."""
-        box = self._fields_box if self.view else self._results_box
-        box.scroll_to(y=box.scroll_y + pages * max(1, box.size.height - 1), animate=False)
+        page(self._fields_box if self.view else self._results_box, pages)
+
+    def scroll_flags(self, pages: int) -> None:
+        """Scroll the flags by whole pages."""
+        page(self._flags_box, pages)
 
     async def cycle_view(self) -> str:
         """Results -> chart panel 1 -> ... -> results; return what is shown now."""
@@ -218,3 +253,8 @@ class CheckView(Vertical):
         outcome = self.outcome
         self._chart.draw(outcome.result if outcome else None, self.workspace.system, computing=outcome is None)
         return f"chart {self.view}/{panels}"
+
+
+def page(box: VerticalScroll, pages: int) -> None:
+    """Scroll ``box`` by whole pages, keeping one line of the last page in view."""
+    box.scroll_to(y=box.scroll_y + pages * max(1, box.size.height - 1), animate=False, immediate=True)

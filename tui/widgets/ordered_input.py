@@ -27,11 +27,18 @@ class OrderedInput(Input):
             event.prevent_default()
             focused.post_message(events.Key(event.key, event.character))
             return
-        if not event.is_printable:
-            active = self.screen.active_bindings.get(event.key)
-            if active is not None and active.enabled and not active.binding.priority:
-                event.stop()
-                event.prevent_default()
-                await self.app.run_action(active.binding.action, active.node)
-                return
+        if not event.is_printable and await self._run_binding(event.key):
+            event.stop()
+            event.prevent_default()
+            return
         await super()._on_key(event)
+
+    async def _run_binding(self, key: str) -> bool:
+        """Run the first binding of ``key`` that acts, from this box up to the app, as Textual does after
+        the key bubbled: a binding whose action declines (the box's own PageDown, with nothing to scroll)
+        leaves the key to the next one (the app's, which scrolls the results). True when one acted."""
+        for node, bindings in self.screen._modal_binding_chain:
+            for binding in bindings.key_to_bindings.get(key, ()):
+                if not binding.priority and await self.app.run_action(binding.action, node):
+                    return True
+        return False
