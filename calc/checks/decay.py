@@ -81,11 +81,11 @@ def _values(found: Decay, kind: str) -> dict[str, Value]:
     values = {
         "natural_frequency": quantity("Natural frequency", "frequency", found.natural_frequency,
                                       meaning=Meaning("natural frequency", STRUCTURE)),
-        "damping_ratio": quantity("Damping ratio (decay fit)", "ratio", found.damping_ratio,
+        "damping_ratio": quantity("Damping ratio, decay fit", "ratio", found.damping_ratio,
                                   meaning=Meaning("damping ratio", STRUCTURE)),
         "damping_ratio_low": quantity("Damping ratio, 95 % low", "ratio", found.damping_ratio_low),
         "damping_ratio_high": quantity("Damping ratio, 95 % high", "ratio", found.damping_ratio_high),
-        "log_decrement": quantity("Log decrement (per cycle)", "number", found.log_decrement),
+        "log_decrement": quantity("Log decrement per cycle", "number", found.log_decrement),
         "cycles": quantity("Cycles fitted", "number", found.cycles),
         "peaks": quantity("Peaks fitted", "count", float(found.fit.count)),
         "fit_r_squared": quantity("Fit R^2 (ln amplitude)", "number", found.fit.r_squared),
@@ -103,13 +103,13 @@ def _values(found: Decay, kind: str) -> dict[str, Value]:
     if found.halves is not None:
         large, small = found.halves
         values["damping_ratio_large_amplitude"] = quantity(
-            "Damping ratio, larger half of peaks", "ratio", damping_from_sigma(large.sigma, found.damped_frequency)[1])
+            "Damping, larger peaks", "ratio", damping_from_sigma(large.sigma, found.damped_frequency)[1])
         values["damping_ratio_small_amplitude"] = quantity(
-            "Damping ratio, smaller half of peaks", "ratio", damping_from_sigma(small.sigma, found.damped_frequency)[1])
+            "Damping, smaller peaks", "ratio", damping_from_sigma(small.sigma, found.damped_frequency)[1])
     values["decay_start"] = quantity("Decay start", "time", found.decay_start)
     values["decay_end"] = quantity("Decay end (into noise)", "time", found.decay_end)
     values["initial_amplitude"] = quantity("First peak amplitude", kind, found.initial_amplitude)
-    values["noise_rms"] = quantity("Noise RMS (analysed band)", kind, found.noise_rms)
+    values["noise_rms"] = quantity("Noise RMS in the band", kind, found.noise_rms)
     if found.band is not None:
         values["band_low"] = quantity("Band-pass low edge", "frequency", found.band[0])
         values["band_high"] = quantity("Band-pass high edge", "frequency", found.band[1])

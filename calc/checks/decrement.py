@@ -47,11 +47,11 @@ def compute(inputs: Inputs) -> Result:
 
     decrement, zeta = decrement_from_peaks(first, later, cycles)
     values = {
-        "log_decrement": quantity("Log decrement (per cycle)", "number", decrement),
+        "log_decrement": quantity("Log decrement per cycle", "number", decrement),
         "damping_ratio": quantity("Damping ratio", "ratio", zeta, meaning=Meaning("damping ratio", STRUCTURE)),
-        "damping_ratio_small_damping": quantity("Damping ratio, delta / 2 pi form", "ratio", decrement / (2 * math.pi)),
-        "amplitude_ratio": quantity("Amplitude ratio u_i / u_(i+n)", "number", first / later),
-        "cycles_to_halve": quantity("Cycles to halve amplitude", "number", math.log(2) / decrement),
+        "damping_ratio_small_damping": quantity("Damping ratio, delta/2pi", "ratio", decrement / (2 * math.pi)),
+        "amplitude_ratio": quantity("Ratio of the two peaks", "number", first / later),
+        "cycles_to_halve": quantity("Cycles to half amplitude", "number", math.log(2) / decrement),
     }
     flags: list[Flag] = []
     if not float(cycles).is_integer():

@@ -141,9 +141,9 @@ def compute(inputs: Inputs) -> Result:
             flags.append(Flag("info", "Sd(T) has no damping correction: q allows for it (3.2.2.5(3))"))
     if inputs.has("mass"):
         mass = inputs.value("mass", positive=True)
-        values["base_shear"] = quantity("Elastic base shear m Se(T)", "force", mass * se)
+        values["base_shear"] = quantity("Elastic shear m Se(T)", "force", mass * se)
         if sd is not None:
-            values["design_base_shear"] = quantity("Design base shear m Sd(T), lambda = 1", "force", mass * sd)
+            values["design_base_shear"] = quantity("Design shear m Sd(T)", "force", mass * sd)
     return inputs.result(values, series=series, flags=tuple(flags), references=references)
 
 

@@ -23,7 +23,7 @@ NEAR = 0.10
 FIELDS = (
     Field("frequency", "Vertical frequency", "frequency", "2.1 Hz", "Hz", shared=True,
           help="the first vertical natural frequency", meaning=Meaning("natural frequency", STRUCTURE)),
-    Field("higher_frequencies", "Higher vertical frequencies", "frequency", "", "Hz", many=True, required=False,
+    Field("higher_frequencies", "Higher vertical modes", "frequency", "", "Hz", many=True, required=False,
           help="further vertical (or torsional) natural frequencies, a list"),
     Field("lateral_frequency", "Lateral frequencies", "frequency", "1.05 Hz", "Hz", many=True, required=False,
           help="lateral (horizontal) or torsional natural frequencies"),
@@ -87,7 +87,7 @@ def _direction_values(direction: str, frequencies: np.ndarray, bands: tuple[Band
     prefix = "" if direction == "vertical" else "lateral_"
     return {
         f"{prefix}bands": word(f"{direction.capitalize()} bands", " | ".join(described)),
-        f"{prefix}margin": quantity(f"{direction.capitalize()} margin (- inside)", "frequency",
+        f"{prefix}margin": quantity(f"{direction.capitalize()}: out of band by", "frequency",
                                     margins),
         f"{prefix}comfort_check": word(f"{direction.capitalize()} comfort check", ", ".join(verdicts)),
     }

@@ -68,7 +68,7 @@ def compute(inputs: Inputs) -> Result:
         "natural_frequency": quantity("Natural frequency", "frequency", natural_frequency,
                                       meaning=Meaning("natural frequency", STRUCTURE)),
         "frequency_ratio": quantity("Frequency ratio r = f/fn", "number", r),
-        "amplification": quantity("Dynamic amplification R_d", "number", gain),
+        "amplification": quantity("Amplification R_d", "number", gain),
         "phase": quantity("Phase lag", "angle", float(forced.phase(r, zeta))),
         "force_amplitude": quantity("Force amplitude", "force", force),
         "static_displacement": quantity("Static displacement F/k", "length", static),
@@ -84,7 +84,7 @@ def compute(inputs: Inputs) -> Result:
     if math.isfinite(peak_ratio):
         values["peak_frequency"] = quantity("Peak frequency", "frequency", peak_ratio * natural_frequency)
     if unbalance:
-        values["unbalance_amplification"] = quantity("Unbalance response M u/(m e) = r^2 R_d", "number", r**2 * gain)
+        values["unbalance_amplification"] = quantity("Unbalance magnification", "number", r**2 * gain)
     grid = forced.ratio_grid(r, zeta)
     series = {"frequency_ratio": grid, "amplification": forced.amplification(grid, zeta),
               "phase": forced.phase(grid, zeta)}
@@ -114,7 +114,8 @@ def _flags(r: float, zeta: float, natural_frequency: float, unbalance: bool) -> 
                                      f"{forced.peak_amplification(zeta):.3g}"))
     if unbalance:
         flags.append(Flag("info", "unbalance: force m e w^2 taken at the operating speed; amplification shown "
-                                  "is R_d for that force; the run-up amplitude peaks at r = 1/sqrt(1-2 zeta^2)"))
+                                  "is R_d for that force; unbalance magnification = M u/(m e) = r^2 R_d (u the amplitude, M "
+                                  "the mass); the run-up amplitude peaks at r = 1/sqrt(1-2 zeta^2)"))
     if not forced.has_peak(zeta):
         flags.append(Flag("info", "damping of 70.7 % or more: no resonance peak"))
     return tuple(flags)

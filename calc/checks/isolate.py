@@ -64,9 +64,9 @@ def compute(inputs: Inputs) -> Result:
         ratio = isolate.ratio_for_transmissibility(1.0 - target, zeta)
         required_frequency = frequency / ratio
         required_stiffness = isolate.stiffness_for_frequency(mass, required_frequency)
-        values["required_natural_frequency"] = quantity("Required natural frequency (at most)", "frequency",
+        values["required_natural_frequency"] = quantity("Required frequency, max", "frequency",
                                                         required_frequency)
-        values["required_stiffness"] = quantity("Required stiffness, total (at most)", "stiffness",
+        values["required_stiffness"] = quantity("Required stiffness, max", "stiffness",
                                                 required_stiffness)
         if zeta > 0:
             undamped = frequency / isolate.undamped_ratio_for_transmissibility(1.0 - target)
@@ -81,15 +81,15 @@ def compute(inputs: Inputs) -> Result:
                                       "force through the mounts is unbounded; give the damping")
     weight = mass * STANDARD_GRAVITY
     values = {
-        "natural_frequency": quantity("Natural frequency on the mounts", "frequency", natural_frequency),
+        "natural_frequency": quantity("Frequency on the mounts", "frequency", natural_frequency),
         "frequency_ratio": quantity("Frequency ratio r = f/fn", "number", r),
         "transmissibility": quantity("Transmissibility T", "number", transmitted),
         **_isolation_or_amplification(transmitted),
         **values,
         "stiffness": quantity("Mount stiffness, total", "stiffness", stiffness),
         "stiffness_per_mount": quantity("Stiffness per mount", "stiffness", stiffness / mounts),
-        "load_per_mount": quantity("Load per mount (weight / mounts)", "force", weight / mounts),
-        "static_deflection": quantity("Static deflection under the weight", "length", weight / stiffness),
+        "load_per_mount": quantity("Load per mount", "force", weight / mounts),
+        "static_deflection": quantity("Static deflection", "length", weight / stiffness),
         **_start_up_peak(zeta, natural_frequency),
     }
     flags += _flags(inputs, r, transmitted, natural_frequency, zeta, required_stiffness, stiffness)

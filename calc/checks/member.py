@@ -124,10 +124,10 @@ def _beam_dynamics(inputs: Inputs, modulus: float, second_moment: float, span: f
         "natural_frequency": quantity("First natural frequency", "frequency", frequency,
                                       meaning=Meaning("natural frequency", STRUCTURE)),
         "mass": quantity("Mass of the beams (m L)", "mass", count * mass_per_length * span),
-        "equivalent_mass": quantity("Equivalent mass at midspan (k/w1^2)", "mass",
+        "equivalent_mass": quantity("Equivalent mass k/w1^2", "mass",
                                     member.equivalent_mass(stiffness, frequency)),
         "self_weight_deflection": quantity("Deflection under m g0", "length", deflection),
-        "rule_of_thumb_frequency": quantity("18/sqrt(delta mm) cross-check", "frequency",
+        "rule_of_thumb_frequency": quantity("Check: 18/sqrt(d in mm)", "frequency",
                                             member.frequency_rule_of_thumb(deflection)),
     }
 

@@ -41,7 +41,7 @@ def compute(inputs: Inputs) -> Result:
                            meaning=Meaning("fundamental period", BUILDING)),
         "period_asce": quantity("Ta, ASCE 7-16 12.8.2.1", "time", period.asce7(height, system)),
         "ct_en": quantity("Ct, EN 1998-1 (H in m)", "number", period.EN_CT[system]),
-        "ct_asce": quantity("Ct, ASCE 7 Table 12.8-2 (SI)", "number", ct_asce),
+        "ct_asce": quantity("Ct, ASCE 7 12.8-2 (SI)", "number", ct_asce),
         "exponent_asce": quantity("x, ASCE 7 Table 12.8-2", "number", exponent),
     }
     flags = [Flag("info", "ASCE 7 12.8.2: the period used may not exceed Cu Ta (Table 12.8-1)")]

@@ -61,7 +61,7 @@ def compute(inputs: Inputs) -> Result:
         "natural_period": quantity("Natural period", "time", 2 * math.pi / omega_n,
                                    meaning=Meaning("natural period", STRUCTURE)),
         "stiffness": quantity("Stiffness", "stiffness", stiffness, meaning=Meaning("stiffness", STRUCTURE)),
-        "static_deflection": quantity("Static deflection (m g0 / k)", "length",
+        "static_deflection": quantity("Static deflection m g0/k", "length",
                                       mass * sdof.STANDARD_GRAVITY / stiffness,
     meaning=Meaning("static deflection", STRUCTURE)),
         "damping_ratio": quantity("Damping ratio", "ratio", zeta, meaning=Meaning("damping ratio", STRUCTURE)),
@@ -75,7 +75,7 @@ def compute(inputs: Inputs) -> Result:
         values["damped_frequency"] = quantity("Damped frequency", "frequency",
                                               omega_n * math.sqrt(1 - zeta**2) / (2 * math.pi))
         values["log_decrement"] = quantity("Log decrement", "number", decrement)
-        values["cycles_to_halve"] = quantity("Cycles to halve amplitude", "number", math.log(2) / decrement)
+        values["cycles_to_halve"] = quantity("Cycles to half amplitude", "number", math.log(2) / decrement)
     flags.extend(_flags(zeta))
     unit = "the stiffness unit" if inputs.has("stiffness") else "the deflection unit"
     note = plausible.static_deflection(mass * sdof.STANDARD_GRAVITY / stiffness, unit)

@@ -120,7 +120,7 @@ def compute(inputs: Inputs) -> Result:
         "period": quantity("Fundamental period", "time", periods[0], meaning=Meaning("fundamental period", BUILDING)),
         "periods": quantity("Periods", "time", periods),
         "frequencies": quantity("Frequencies", "frequency", found.omega / (2 * np.pi)),
-        "mode_shapes": quantity("Mode shapes (per mode, roof = 1)", "number", found.shapes),
+        "mode_shapes": quantity("Mode shapes (roof = 1)", "number", found.shapes),
         "participation": quantity("Participation", "number", found.participation),
         "effective_mass_ratio": quantity("Effective mass", "ratio", ratios),
         "cumulative_mass_ratio": quantity("Cumulative mass", "ratio", np.cumsum(ratios)),
@@ -196,7 +196,7 @@ def damage_limitation(inputs: Inputs, drifts: np.ndarray, heights: np.ndarray,
                                   "non-structural elements, EN 1998-1 4.4.3.2)"))
     flags.append(Flag("info", f"nu = {nu:g}: {nu_source}"))
     return {
-        "damage_drift_ratio": quantity("d_r nu / h per storey (damage limitation)", "ratio", ratios),
+        "damage_drift_ratio": quantity("Damage drift d_r nu/h", "ratio", ratios),
         "damage_largest_ratio": quantity("Largest d_r nu / h", "ratio", float(ratios[largest])),
         "damage_limit": quantity(f"Limit alpha ({non_structural})", "ratio", alpha),
         "reduction_factor": quantity("Reduction factor nu", "number", nu),

@@ -41,7 +41,7 @@ FIELDS = (
                "(Warburton)"),
     Field("force", "Force amplitude", "force", "", "kN", required=False,
           help="harmonic force for the displacement and damper stroke (excitation force)"),
-    Field("ground_acceleration", "Ground acceleration amplitude", "acceleration", "", "m/s^2",
+    Field("ground_acceleration", "Ground acceleration", "acceleration", "", "m/s^2",
           required=False, help="for the displacement and damper stroke (excitation ground)"),
 )
 
@@ -85,19 +85,19 @@ def compute(inputs: Inputs) -> Result:
         "tuning_ratio": quantity("Tuning ratio f_d / f", "number", best.tuning),
         "tmd_frequency": quantity("Damper frequency", "frequency", omega_d / (2 * math.pi)),
         "tmd_stiffness": quantity("Damper stiffness", "stiffness", mass * omega_d**2),
-        "tmd_damping_ratio": quantity("Damper damping ratio c/(2 m_d w_d)", "ratio", best.damping),
-        "tmd_damping_coefficient": quantity("Damper damping coefficient", "damping_coefficient",
+        "tmd_damping_ratio": quantity("Damper damping ratio", "ratio", best.damping),
+        "tmd_damping_coefficient": quantity("Dashpot coefficient c", "damping_coefficient",
                                             2 * best.damping * mass * omega_d),
-        "peak_amplification": quantity("Peak amplification, with damper", "number", peak),
+        "peak_amplification": quantity("Peak, with damper", "number", peak),
         "peak_frequency": quantity("Frequency of that peak", "frequency", peak_ratio * frequency),
-        "peak_amplification_closed_form": quantity("Peak, closed form (undamped mode)", "number", best.peak),
-        "equivalent_damping": quantity("Equivalent damping (same peak)", "ratio", tmd.equivalent_damping(peak)),
-        "stroke_ratio": quantity("Damper stroke / static displacement", "number", stroke),
-        "peak_amplification_mistuned_low": quantity(f"Peak, damper tuned {MISTUNING:.0%} low", "number", low),
-        "peak_amplification_mistuned_high": quantity(f"Peak, damper tuned {MISTUNING:.0%} high", "number", high),
+        "peak_amplification_closed_form": quantity("Peak if mode undamped", "number", best.peak),
+        "equivalent_damping": quantity("Equivalent damping", "ratio", tmd.equivalent_damping(peak)),
+        "stroke_ratio": quantity("Stroke / static displ.", "number", stroke),
+        "peak_amplification_mistuned_low": quantity(f"Peak, tuned {MISTUNING:.0%} low", "number", low),
+        "peak_amplification_mistuned_high": quantity(f"Peak, tuned {MISTUNING:.0%} high", "number", high),
     }
     if math.isfinite(bare):
-        values["peak_amplification_without"] = quantity("Peak amplification, without damper", "number", bare)
+        values["peak_amplification_without"] = quantity("Peak, without damper", "number", bare)
         values["peak_reduction"] = quantity("Peak reduction", "ratio", 1 - peak / bare)
     else:
         flags.append(Flag("info", "undamped mode: without a damper the resonant response is unbounded"))

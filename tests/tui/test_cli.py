@@ -169,7 +169,7 @@ def test_console_script_exit_status_in_a_real_process() -> None:
 def test_decay_with_a_positional_file_prints_results(capsys: pytest.CaptureFixture[str]) -> None:
     code, out, err = run(capsys, "decay", str(demo_file(HEEL_DROP)))
     assert code == 0 and err == ""
-    for label in ("Natural frequency", "Damping ratio (decay fit)", "95 % low", "Half-power damping ratio",
+    for label in ("Natural frequency", "Damping ratio, decay fit", "95 % low", "Half-power damping ratio",
                   "Zero-crossing frequency", "Fit R^2"):
         assert label in out
     assert "licensed" in out

@@ -52,7 +52,7 @@ class ResultsTable(Static):
         # a long value (a list per storey, a sentence) folds in a fixed share, so labels stay readable
         folded = any(len(text) > LONG_VALUE for _, text in rows)
         table = Table(box=None, show_header=False, padding=(0, 1, 0, 0), expand=True)
-        table.add_column("what", ratio=2 if folded else 1, overflow="ellipsis", no_wrap=True)
+        table.add_column("what", ratio=2 if folded else 1, overflow="fold")  # a long label takes two lines
         table.add_column("value", ratio=3 if folded else None, overflow="fold", justify="right")
         for label, text in rows:
             table.add_row(Text(label), Text(text))

@@ -56,8 +56,8 @@ def test_rpm_and_angular_units() -> None:
     ({"frequency": ""}, "Vertical frequency", "required"),
     ({"frequency": "2.1 Hz, 4 Hz"}, "Vertical frequency", "comma"),
     ({"frequency": "0 Hz"}, "Vertical frequency", "greater than zero"),
-    ({"higher_frequencies": "4.2 Hz,"}, "Higher vertical frequencies", "empty item"),
-    ({"higher_frequencies": "4 Hz, -3 Hz"}, "Higher vertical frequencies", "greater than zero"),
+    ({"higher_frequencies": "4.2 Hz,"}, "Higher vertical modes", "empty item"),
+    ({"higher_frequencies": "4 Hz, -3 Hz"}, "Higher vertical modes", "greater than zero"),
     ({"lateral_frequency": "1 t"}, "Lateral frequencies #1", "not a unit of frequency"),
     ({"structure": "tower"}, "Structure", "not one of the choices"),
 ])
