@@ -61,10 +61,10 @@ def screen_text(app: FieldmodeApp) -> str:
 
 
 def note_of(view: CheckView, name: str) -> str:
-    """The reading shown beside a field, then its error line, as plain text."""
+    """The reading shown beside a field, then its error line and whether it is shared, as plain text."""
     row = view.row(name)
     return " ".join(part for part in (row.note if not row.error else "! not read",
-                                       "! " + row.error if row.error else "") if part)
+                                       "! " + row.error if row.error else "", row.sharing[0]) if part)
 
 
 def flags_text(view: CheckView) -> str:

@@ -185,7 +185,7 @@ class CheckView(Vertical):
 
         self.outcome = outcome
         for name, row in self._rows.items():
-            row.show(self._note(name, outcome), outcome.errors.get(name, ""))
+            row.show(self._note(name, outcome), outcome.errors.get(name, ""), self._sharing(name))
         result = outcome.result
         if result is not None:
             self._table.show_rows([(value.label, "\n".join(value_lines(value, outcome.system, MOST_ITEMS)))
@@ -214,14 +214,18 @@ class CheckView(Vertical):
             others = [f.label for f in self.spec.fields
                       if f.group and f.group == spec_field.group and f is not spec_field]
             note = ("or " + " / ".join(others)) if others else ("optional" if not spec_field.required else "")
+        return note
+
+    def _sharing(self, name: str) -> tuple[str, str]:
+        """Whether a shared field's value is the same as in other checks, and what Ctrl+O would do."""
         partners = self.workspace.partners(self.spec.id, name)
-        if partners and name in self.workspace.own[self.spec.id]:
-            note += f"; its own value here (Ctrl+O: the same as in {', '.join(partners)})"
-        elif partners:
-            following = [check for check, _ in self.workspace.sharing(self.spec.id, name)]
-            same = f"same as in {', '.join(following)}" if following else "shared"
-            note += f"; {same} (Ctrl+O: a value of its own here)"
-        return note.lstrip("; ")
+        if not partners:
+            return "", ""
+        if name in self.workspace.own[self.spec.id]:
+            return "its own value here", f"Ctrl+O for the same as in {', '.join(partners)}"
+        following = [check for check, _ in self.workspace.sharing(self.spec.id, name)]
+        same = f"same as in {', '.join(following)}" if following else f"shared with {', '.join(partners)}"
+        return same, "Ctrl+O for a value of its own here"
 
     def scroll_results(self, pages: int) -> None:
         """Scroll the results (or the fields, in chart view) by whole pages."""

@@ -83,6 +83,8 @@ class FieldRow(Widget):
         """How the text was read, as shown beside the box."""
         self.error = ""
         """What is wrong with the text ('' when it was read)."""
+        self.sharing: tuple[str, str] = ("", "")
+        """Whether the value is the same as in other checks, and the key that changes it (shown in focus)."""
         self.notes_shown = True
         """False in chart view, where the pane is too narrow for the readings."""
         self._focused = False
@@ -104,7 +106,8 @@ class FieldRow(Widget):
         return PATH_BOX_WIDTH if self.field.kind == "path" else BOX_WIDTH
 
     def _lines(self, width: int) -> tuple[list[str], list[str], list[str]]:
-        """The label lines, the reading's lines beside the box, and the error lines, for ``width`` cells."""
+        """The label lines, the reading's lines beside the box, and the lines below the box (error,
+        sharing), for ``width`` cells."""
         label = self.field.label_with_unit + (", list" if self.field.many else "")
         labels = textwrap.wrap(label, max(8, width - 2)) or [""]
         beside = max(4, width - INDENT - self._box_width - 1)
@@ -113,6 +116,9 @@ class FieldRow(Widget):
             note = f"! pasted text cut at {self.input.max_length} characters; {note}"
         notes = (textwrap.wrap(printable(note), beside) or [""]) if self.notes_shown else [""]
         errors = textwrap.wrap("! " + printable(self.error), max(8, width - INDENT)) if self.error else []
+        state, key = self.sharing
+        if state and self.notes_shown:
+            errors += textwrap.wrap(state + (f"; {key}" if key and self._focused else ""), max(8, width - INDENT))
         return labels, notes, errors
 
     def _fit(self) -> None:
@@ -138,24 +144,33 @@ class FieldRow(Widget):
         column = " " * (INDENT + self._box_width + 1)
         for line in notes:
             text.append(column + line + "\n", style="dim" if not self.error else "")
-        for line in errors:
-            text.append(" " * INDENT + line + "\n", style="bold")
+        for index, line in enumerate(errors):
+            text.append(" " * INDENT + line + "\n", style="bold" if index < self._error_lines else "dim")
         text.rstrip()
         return text
 
+    @property
+    def _error_lines(self) -> int:
+        return len(textwrap.wrap("! " + printable(self.error), max(8, (self.size.width or DEFAULT_WIDTH) - INDENT))
+                   ) if self.error else 0
+
     def on_descendant_focus(self) -> None:
         self._focused = True
+        self._fit()  # the sharing line names its key in focus
         self.refresh()
 
     def on_descendant_blur(self) -> None:
         self._focused = False
+        self._fit()
         self.refresh()
 
-    def show(self, note: str, error: str) -> None:
-        """Show how the text was read, or what is wrong with it (marked with '!')."""
-        if (note, error, self.input.cut) == (self.note, self.error, self._cut_shown):
+    def show(self, note: str, error: str, sharing: tuple[str, str] = ("", "")) -> None:
+        """Show how the text was read, or what is wrong with it (marked with '!'), and ``sharing``:
+        whether the value is the same as in other checks (below the box), with the key that changes
+        it (shown while the field is in focus)."""
+        if (note, error, self.input.cut, sharing) == (self.note, self.error, self._cut_shown, self.sharing):
             return
-        self.note, self.error, self._cut_shown = note, error, self.input.cut
+        self.note, self.error, self._cut_shown, self.sharing = note, error, self.input.cut, sharing
         self.set_class(bool(error), "-error")
         self._fit()
         self.refresh()
