@@ -109,14 +109,19 @@ def flag_text(flag: Flag) -> str:
 
 
 def reading_text(reading: Reading | tuple[Reading, ...] | str, system: str) -> str:
-    """How a field's text was read, e.g. '= 24.17 Hz' or 'read as weight: m = W/g0 = 12.00 t'."""
+    """How a field's text was read, e.g. '= 24.17 Hz', or a weight in a mass field in the unit typed
+    with the mass beside it in ``system``: '= 26.00 kip, read as weight: m = W/g0 = 26000 lb'."""
     if isinstance(reading, str):
         return f"= {printable(reading)}"
     if isinstance(reading, tuple):
         items = [format_value(r.si, r.kind, system) for r in reading]
         if len(items) > MOST_READINGS:
             return f"{len(items)} values: {items[0]} ... {items[-1]}"
+        if reading and all(r.weight for r in reading):
+            return f"= {', '.join(printable(r.weight) for r in reading)}, read as weights: m = W/g0 = {', '.join(items)}"
         return "= " + ", ".join(items)
+    if reading.weight:
+        return f"= {printable(reading.weight)}, read as weight: m = W/g0 = {format_value(reading.si, reading.kind, system)}"
     if KINDS[reading.kind].integer:
         return f"= {reading.si:.0f}"
     if reading.note and "=" in reading.note:

@@ -93,6 +93,8 @@ class Reading:
     quantity: pint.Quantity
     kind: str
     note: str = ""
+    weight: str = ""
+    """A weight typed where a mass is asked, in the unit typed ('26.00 kip'); '' for anything else."""
 
     @property
     def si(self) -> float:
@@ -220,7 +222,8 @@ def _read_other_dimension(text: str, name: str, quantity: pint.Quantity, unit_te
     if spec.weight_of and quantity.check(spec.weight_of):
         mass = (quantity / Q_(STANDARD_GRAVITY, "m/s^2")).to(spec.si)
         as_mass = format_value(float(mass.magnitude), spec.name)
-        return Reading(text, mass, spec.name, f"read as weight: m = W/g0 = {as_mass}")
+        return Reading(text, mass, spec.name, f"read as weight: m = W/g0 = {as_mass}",
+                       weight=f"{format_number(float(quantity.magnitude))} {unit_text}")
     if re.search(r"\blb\b", unit_text):
         swapped = re.sub(r"\blb\b", "lbf", unit_text)
         units = _safe_units(text, name, swapped, spec)

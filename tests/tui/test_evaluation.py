@@ -6,7 +6,7 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from fieldmode.calc.checks import SPECS, sdof
+from fieldmode.calc.checks import SPECS, sdof, storeys
 from fieldmode.tui.evaluation import evaluate, evaluate_guarded, field_of_error
 
 ALL_FIELDS = [(spec, f) for spec in SPECS for f in spec.fields]
@@ -35,7 +35,8 @@ def test_any_text_in_any_field_gives_an_outcome(pair, text):
 def test_interpretations_beside_the_fields():
     texts = sdof.SPEC.demo_texts() | {"mass": "117.7 kN", "stiffness": "45 kip/in", "damping": "3"}
     outcome = evaluate(sdof.SPEC, texts, "si")
-    assert outcome.notes["mass"].startswith("read as weight: m = W/g0 = 12.0")
+    # Source: CGPM 1901, standard gravity g0 = 9.80665 m/s^2 -> 117.7 kN / g0 = 12.00 t
+    assert outcome.notes["mass"] == "= 117.7 kN, read as weight: m = W/g0 = 12.00 t"
     # Source: NIST SP 811 B.8: 1 kip = 4448.2216152605 N, 1 in = 0.0254 m -> 45 kip/in = 7.881 kN/mm
     assert outcome.notes["stiffness"] == "= 7.881 kN/mm"
     assert outcome.notes["damping"] == "= 3.000 %; read as 3 %"  # a damping field reads a bare 3 as 3 %
@@ -117,3 +118,18 @@ def test_a_column_or_rate_the_record_refuses_is_said_beside_that_field(field, te
 
     outcome = evaluate(decay.SPEC, {**decay.SPEC.demo_texts(), field: text}, "si")
     assert list(outcome.errors) == [field], outcome.errors
+
+
+def test_a_weight_in_a_mass_field_is_echoed_in_the_unit_typed_with_the_mass_in_the_unit_system():
+    # Source: NIST SP 811 B.8: 1 kip = 1000 lbf, 1 lbf = 1 lb x g0, so 26 kip / g0 = 26000 lb (11.79 t)
+    texts = sdof.SPEC.demo_texts() | {"mass": "26 kip"}
+    assert evaluate(sdof.SPEC, texts, "us").notes["mass"] == "= 26.00 kip, read as weight: m = W/g0 = 26000 lb"
+    assert evaluate(sdof.SPEC, texts, "si").notes["mass"] == "= 26.00 kip, read as weight: m = W/g0 = 11.79 t"
+    # a list of storey weights: each in the unit typed, then the masses
+    # Source: CGPM 1901, g0 = 9.80665 m/s^2: 3040 kN / g0 = 310.0 t, 2940 kN / g0 = 299.8 t
+    texts = storeys.SPEC.demo_texts() | {"masses": "3040, 2940 kN"}
+    texts["stiffnesses"], texts["heights"] = "180, 160 kN/mm", "4.5, 3.5 m"
+    assert evaluate(storeys.SPEC, texts, "si").notes["masses"] == (
+        "= 3040 kN, 2940 kN, read as weights: m = W/g0 = 310.0 t, 299.8 t")
+    # a mass stays a mass. Source: NIST SP 811 B.8, 1 lb = 0.45359237 kg exactly: 12 t = 26455 lb
+    assert evaluate(sdof.SPEC, sdof.SPEC.demo_texts() | {"mass": "12 t"}, "us").notes["mass"] == "= 26455 lb"
