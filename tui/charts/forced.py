@@ -23,7 +23,7 @@ def draw_amplification(plt: Any, result: Result, system: str) -> None:
     plt.scatter([result.number("frequency_ratio")], [result.number("amplification")], marker=OPERATING_MARKER)
     plt.yscale("log")
     plt.xlim(0.0, ratio[-1])
-    plt.title(f"Amplification R_d ({OPERATING_MARKER} = operating, lines = +/-20 %)")
+    plt.title(f"Amplification R_d ({OPERATING_MARKER} operating, | +/-20 %)")  # fits 80x24
     plt.xlabel("r = f/fn")
 
 

@@ -47,7 +47,7 @@ class Pane(VerticalScroll, inherit_bindings=False):
         focused = self.app.focused
         row = focused.parent if focused is not None else None
         if isinstance(row, FieldRow) and row.parent is self:
-            self.scroll_to_widget(row, animate=False, immediate=True)
+            row.scroll_visible(animate=False, immediate=True)
 
 
 class CheckView(Vertical):

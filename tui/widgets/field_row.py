@@ -133,10 +133,18 @@ class FieldRow(Widget):
 
     def on_resize(self) -> None:
         self._fit()
+        if self._focused:  # grown in focus (the sharing line's key): keep all of it in view
+            self._show_whole()
+
+    def _show_whole(self) -> None:
+        """Scroll the row, label to last line, into view (after the layout that gives it its height)."""
+        self.call_after_refresh(self.scroll_visible, animate=False, immediate=True)
 
     def render(self) -> Text:
         """Label (marked '>' in focus), the reading beside the box, the error below."""
         labels, notes, errors = self._lines(self.size.width or DEFAULT_WIDTH)
+        if (len(labels), len(labels) + len(notes) + len(errors)) != self._shape:
+            self.call_after_refresh(self._fit)  # laid out at another width (the chart view's narrower pane)
         text = Text(no_wrap=True, overflow="crop")
         for index, line in enumerate(labels):
             marker = "> " if self._focused and index == 0 else "  "
@@ -158,6 +166,7 @@ class FieldRow(Widget):
         self._focused = True
         self._fit()  # the sharing line names its key in focus
         self.refresh()
+        self._show_whole()
 
     def on_descendant_blur(self) -> None:
         self._focused = False
