@@ -18,7 +18,7 @@ from fieldmode.calc.checks import SPECS
 from fieldmode.tui.app import FieldmodeApp
 from fieldmode.tui.present import flag_text
 from fieldmode.tui.widgets.check_view import CheckView
-from helpers.pilot import go_to, screen_text, settle
+from helpers.pilot import focus_field, go_to, screen_text, settle, type_into
 
 SIZE = (80, 24)
 CUT = re.compile(r"[\w)](…|\.\.\.)")
@@ -174,3 +174,95 @@ def test_every_label_reads_in_full_and_every_line_is_reached_at_80x24(make_app, 
             await check_charts(app, pilot, view)
 
     asyncio.run(scenario())
+
+
+def test_page_keys_move_the_results_of_decay_and_storeys_to_their_last_lines(make_app):
+    # a text box in focus took PageDown itself (nothing to scroll in one line) and the key stopped there
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            for check_id, last in (("decay", "Noise RMS in the band"), ("storeys", "Limit alpha")):
+                view = await go_to(app, pilot, check_id)
+                box = view._results_box
+                assert box.max_scroll_y > 0 and box.scroll_y == 0
+                assert last not in screen_text(app)
+                for _ in range(10):
+                    await pilot.press("pagedown")
+                await pilot.pause()
+                assert box.scroll_y == box.max_scroll_y
+                assert last in screen_text(app)
+                await pilot.press("pageup")
+                await pilot.pause()
+                assert box.scroll_y < box.max_scroll_y
+                assert isinstance(app.focused, type(view.rows()[0].input))  # the keys never took the focus
+
+    asyncio.run(scenario())
+
+
+def test_the_field_typed_in_stays_on_screen_and_flags_keep_to_their_area(make_app):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            view = await go_to(app, pilot, "forced")
+            fields, flags = view._fields_box, view._flags_box
+            for name, text in (("unbalance", "0.5 kg m"), ("frequency", "600 rpm"), ("unbalance", "0.35 kg m")):
+                view = await type_into(app, pilot, name, text)
+                await pilot.pause()
+                row = view.row(name)
+                assert app.focused is row.input
+                assert visible(row, fields), (name, row.region, fields.content_region)
+                assert text in "".join(region_lines(app, row.region))
+                assert flags.outer_size.height <= 8  # capped: 7 lines and its border
+                assert fields.content_region.height >= 12  # 24 rows less bars, caution and flags
+            view = await go_to(app, pilot, "floor")
+            flags = view._flags_box
+            assert flags.max_scroll_y > 0  # more flags than the area shows: they scroll, by their own keys
+            await pilot.press("ctrl+pagedown")
+            await pilot.pause()
+            assert flags.scroll_y > 0 and view._results_box.scroll_y == 0
+            assert app.focused is view.rows()[0].input  # scrolling the flags leaves the field in focus
+
+    asyncio.run(scenario())
+
+
+def test_a_shared_field_says_in_plain_words_where_its_value_comes_from(make_app):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            view = await settle(app, pilot)
+            assert view.spec.id == "sdof" and app.focused is view.row("mass").input
+            mass = "".join(region_lines(app, view.row("mass").region))
+            assert "same as in forced; Ctrl+O for a value of its own here" in " ".join(mass.split())
+            await focus_field(app, pilot, "stiffness")
+            await pilot.pause()
+            mass = " ".join("".join(region_lines(app, view.row("mass").region)).split())
+            assert "same as in forced" in mass and "Ctrl+O" not in mass  # the key is named in focus only
+            await focus_field(app, pilot, "mass")
+            await pilot.press("ctrl+o")
+            view = await settle(app, pilot)
+            await pilot.pause()
+            mass = " ".join("".join(region_lines(app, view.row("mass").region)).split())
+            assert "its own value here; Ctrl+O for the same as in forced" in mass
+
+    asyncio.run(scenario())
+
+
+PUZZLES = ("(- inside)", "M u/(m e)", "closed form", "c/(2 m_d w_d)")
+"""Label parts an engineer had to decode (issue 12): formulas and signs in place of words."""
+
+
+@pytest.mark.parametrize("system", ["si", "us"])
+def test_result_labels_are_short_plain_words(system):
+    # Common practice (no source): the results column is about 41 cells at 80x24; a label of at most
+    # 24 characters leaves room for a value with its unit on the same line
+    from fieldmode.tui.evaluation import evaluate
+
+    for spec in SPECS:
+        result = evaluate(spec, spec.demo_texts(), system).result
+        assert result is not None, spec.id
+        for value in result.values.values():
+            assert len(value.label) <= 24, (spec.id, value.label)
+            assert not any(puzzle in value.label for puzzle in PUZZLES), (spec.id, value.label)
+        for spec_field in spec.fields:
+            label = spec_field.label_with_unit + (", list" if spec_field.many else "")
+            assert len(label) <= 34, (spec.id, label)  # one line beside the fields' 37 cells
