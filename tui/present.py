@@ -118,10 +118,12 @@ def reading_text(reading: Reading | tuple[Reading, ...] | str, system: str) -> s
         if len(items) > MOST_READINGS:
             return f"{len(items)} values: {items[0]} ... {items[-1]}"
         if reading and all(r.weight for r in reading):
-            return f"= {', '.join(printable(r.weight) for r in reading)}, read as weights: m = W/g0 = {', '.join(items)}"
+            weights = ", ".join(printable(r.weight) for r in reading)
+            return f"= {weights}, read as weights: m = W/g0 = {', '.join(items)}"
         return "= " + ", ".join(items)
     if reading.weight:
-        return f"= {printable(reading.weight)}, read as weight: m = W/g0 = {format_value(reading.si, reading.kind, system)}"
+        mass = format_value(reading.si, reading.kind, system)
+        return f"= {printable(reading.weight)}, read as weight: m = W/g0 = {mass}"
     if KINDS[reading.kind].integer:
         return f"= {reading.si:.0f}"
     if reading.note and "=" in reading.note:

@@ -114,8 +114,8 @@ def _flags(r: float, zeta: float, natural_frequency: float, unbalance: bool) -> 
                                      f"{forced.peak_amplification(zeta):.3g}"))
     if unbalance:
         flags.append(Flag("info", "unbalance: force m e w^2 taken at the operating speed; amplification shown "
-                                  "is R_d for that force; unbalance magnification = M u/(m e) = r^2 R_d (u the amplitude, M "
-                                  "the mass); the run-up amplitude peaks at r = 1/sqrt(1-2 zeta^2)"))
+                                  "is R_d for that force; unbalance magnification = M u/(m e) = r^2 R_d (u the "
+                                  "amplitude, M the mass); the run-up amplitude peaks at r = 1/sqrt(1-2 zeta^2)"))
     if not forced.has_peak(zeta):
         flags.append(Flag("info", "damping of 70.7 % or more: no resonance peak"))
     return tuple(flags)

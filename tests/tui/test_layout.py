@@ -11,6 +11,7 @@ import asyncio
 import re
 
 import pytest
+from helpers.pilot import focus_field, go_to, screen_text, settle, type_into
 from textual.geometry import Region
 from textual.widget import Widget
 
@@ -18,7 +19,6 @@ from fieldmode.calc.checks import SPECS
 from fieldmode.tui.app import FieldmodeApp
 from fieldmode.tui.present import flag_text
 from fieldmode.tui.widgets.check_view import CheckView
-from helpers.pilot import focus_field, go_to, screen_text, settle, type_into
 
 SIZE = (80, 24)
 CUT = re.compile(r"[\w)](…|\.\.\.)")

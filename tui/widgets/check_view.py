@@ -84,6 +84,7 @@ class CheckView(Vertical):
         self._table = ResultsTable("", classes="results")
         self._flags = FlagsList("", classes="flags")
         self._flags_box = Pane(classes="flags-box", can_focus=False)
+        self._flags_box.display = False  # until a result has flags
         self._fields_box = Pane(classes="fields", can_focus=False)
         self._results_box = Pane(classes="results-box", can_focus=False)
         self._right = Vertical(classes="right")
