@@ -153,7 +153,8 @@ class SessionStore:
             with tempfile.TemporaryFile(dir=self.folder):
                 pass
         except OSError as error:
-            return [f"Your inputs will not be saved: {describe_os_error(error, self.folder)}. "
+            reason = error.strerror or type(error).__name__  # the folder, not the probe's temporary name
+            return [f"Your inputs will not be saved: cannot write in {self.folder} ({reason}). "
                     "Export a calc record (F9) to keep them."]
         return []
 

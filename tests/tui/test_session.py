@@ -2,8 +2,10 @@
 
 from __future__ import annotations
 
+import errno
 import json
 import os
+from pathlib import Path
 
 import pytest
 
@@ -55,6 +57,19 @@ def test_atomic_write_leaves_the_old_file_when_it_fails(tmp_path, monkeypatch):
 def test_parse_refuses_what_is_not_a_session(text):
     with pytest.raises(ValueError):
         parse_session(text)
+
+
+def test_an_unwritable_folder_is_named_not_the_probe_file(tmp_path, monkeypatch):
+    folder = tmp_path / "fieldmode"
+    folder.mkdir()
+
+    def refuse(dir):  # a read-only file system refuses the probe's temporary file, naming it
+        raise OSError(errno.EROFS, "Read-only file system", str(Path(dir) / "tmpk4xelf83"))
+
+    monkeypatch.setattr("fieldmode.tui.session.tempfile.TemporaryFile", refuse)
+    message = SessionStore(folder).probe()[0]
+    assert f"cannot write in {folder}" in message and "Read-only file system" in message
+    assert "tmpk4xelf83" not in message
 
 
 def test_unknown_system_falls_back_to_si():

@@ -108,7 +108,8 @@ class ExportScreen(Dialog[str | None]):
         existing = [p for p in record_paths(path) if p.exists()]
         if existing:
             names = " and ".join(str(p) for p in existing)
-            self.app.push_screen(ConfirmScreen(f"{names} already exists. Replace?"),
+            verb = "exist" if len(existing) > 1 else "exists"
+            self.app.push_screen(ConfirmScreen(f"{names} already {verb}. Replace?"),
                                  lambda yes: self._write(path) if yes else self._problem("not written: file kept"))
         else:
             self._write(path)
