@@ -60,16 +60,16 @@ FIELDS = (
     Field("signal_unit", "Signal unit", "text", "", required=False,
           help="m/s^2, mm/s^2, g or mg; default from the header"),
     Field("direction", "Direction", "choice", "vertical", choices=DIRECTIONS, required=False,
-          help="vertical (default) or horizontal: picks the base curve and the default weighting"),
+          help="picks the base curve and the default weighting; default vertical"),
     Field("weighting", "Weighting", "choice", "", choices=WEIGHTINGS, required=False,
-          help="Wb, Wk, Wd or Wm; default Wb for vertical, Wd for horizontal (BS 6472-1)"),
+          help="default Wb for vertical, Wd for horizontal (BS 6472-1)"),
     Field("period", "Period", "choice", "day", choices=PERIODS, required=False,
-          help="day (16 h, default) or night (8 h), for the VDV and the residential factor"),
+          help="16 h day or 8 h night, for the VDV and the residential factor; default day"),
     Field("events", "Events in the period", "count", "", required=False,
           help="how many times the recorded event happens in the period; "
                "empty: the record goes on for the whole period"),
     Field("use", "Use of the floor", "choice", "office", choices=USES, required=False,
-          help="residential, office (default), workshop or critical: the multiplying factor on the base curve"),
+          help="sets the multiplying factor on the base curve; default office"),
 )
 
 REFERENCES = (
@@ -263,8 +263,8 @@ def _flags(direction: str, chosen: str | None, weighting: str, period: str, even
         flags.append(Flag("info", OTHER_USES_NOTE))
     governing = max(band_factor, mtvv_factor or 0.0)
     if governing > limit:
-        flags.append(Flag("warning", f"response factor {governing:.3g} above {limit:g}, the factor for {use} "
-                                     f"({period}): people are likely to notice and comment"))
+        flags.append(Flag("warning", f"response factor {governing:.4g} above {limit:g}, the factor for {use} "
+                                     f"({period}): adverse comment is likely"))
     if mtvv_factor is None:
         flags.append(Flag("info", f"the response factor of the MTVV needs {BASE_WEIGHTING[direction]} for "
                                   f"{direction} vibration: bands only"))
