@@ -20,7 +20,7 @@ from fieldmode.calc.records.columns import RECORD_COLUMN_FIELDS
 
 if TYPE_CHECKING:
     from fieldmode.calc.framework.reading import Inputs
-    from fieldmode.calc.records.human_response import EstimatedVdv
+    from fieldmode.calc.records.human_response import EstimatedVdv, VdvBand
     from fieldmode.calc.records.read import Record
 
 CAUTION = ("Guideline values are screening references: the building's condition, local rules and a licensed "
@@ -40,6 +40,16 @@ WEIGHTING_DIRECTIONS = {"Wb": ("vertical",), "Wk": ("vertical",), "Wd": ("horizo
 """Directions each weighting is meant for (Wm: any direction in buildings)."""
 LOWEST_BAND_LIMIT = 4.0
 """The record must resolve the one-third-octave band at this centre (Hz) or lower: about 3.3 s or more."""
+COMMENT = {
+    "below the lowest range of the table": "below the lowest range",
+    "low probability of adverse comment": "low probability",
+    "adverse comment possible": "possible",
+    "adverse comment probable": "probable",
+    "above the highest range of the table": "above the highest range",
+}
+"""The BS 6472-1 range's meaning, short enough for the results column at 80x24."""
+INTERMITTENT = 2.0
+"""The vibration is said to come and go when the MTVV response factor exceeds the band one this many times."""
 MAX_EVENTS = 100_000
 """Most events of the record accepted in one period."""
 MAX_ACCELERATION = 1000.0
@@ -196,12 +206,13 @@ def compute(inputs: Inputs) -> Result:
         "weighting": word("Weighting", weighting),
         "weighted_rms": quantity("Weighted RMS", "acceleration", level),
         "mtvv": quantity("MTVV (1 s running RMS)", "acceleration", mtvv),
-        "mtvv_time": quantity("MTVV at", "time", float(running_time[top])),
+        "mtvv_time": quantity("MTVV window ends at", "time", float(running_time[top])),
         "crest_factor": quantity("Crest factor", "number", crest),
         "vdv_record": quantity("VDV of the record", "vibration_dose", vdv_record),
         "vdv_period": quantity(f"VDV, {name}", "vibration_dose", vdv_period),
         "estimated_vdv": quantity(f"Estimated VDV, {name}", "vibration_dose", estimate.value),
         "vdv_range": word(f"BS 6472-1 range, {period}", _range_text(band)),
+        "adverse_comment": word("Adverse comment", COMMENT[band.label]),
         "response_factor": quantity("Response factor (bands)", "number", float(factors[worst])),
         "response_band": quantity("at band", "frequency", float(bands.nominal[worst])),
     }
@@ -228,14 +239,13 @@ def compute(inputs: Inputs) -> Result:
                          files=(InputFile(path, record.source.size, record.source.sha256),))
 
 
-def _range_text(band: object) -> str:
-    """'0.4-0.8: adverse comment possible' (m/s^1.75) for a BS 6472-1 range."""
-    low, high, label = band.low, band.high, band.label  # type: ignore[attr-defined]
-    if low == 0.0:
-        return f"below {high:g}: {label}"
-    if math.isinf(high):
-        return f"above {low:g}: {label}"
-    return f"{low:g}-{high:g}: {label}"
+def _range_text(band: VdvBand) -> str:
+    """The BS 6472-1 range of a VDV, e.g. '0.4-0.8 m/s^1.75' or 'below 0.2 m/s^1.75'."""
+    if band.low == 0.0:
+        return f"below {band.high:g} m/s^1.75"
+    if math.isinf(band.high):
+        return f"above {band.low:g} m/s^1.75"
+    return f"{band.low:g}-{band.high:g} m/s^1.75"
 
 
 def _flags(direction: str, chosen: str | None, weighting: str, period: str, events: int | None, duration: float,
@@ -257,22 +267,23 @@ def _flags(direction: str, chosen: str | None, weighting: str, period: str, even
         flags.append(Flag("info", f"{events} events like the record in the {PERIOD_NAMES[period]}: "
                                   f"VDV = ({events} x {vdv:.4g}^4)^(1/4)"))
     if not estimate.valid:
-        flags.append(Flag("caution", f"crest factor {estimate.crest_factor:.2f} is 6 or more: the estimated VDV is not valid; "
-                                     "the measured VDV governs"))
+        flags.append(Flag("caution", f"crest factor {estimate.crest_factor:.2f} is 6 or more: the estimated VDV is "
+                                     "not valid; the measured VDV governs"))
     if use != "residential":
         flags.append(Flag("info", OTHER_USES_NOTE))
     governing = max(band_factor, mtvv_factor or 0.0)
     if governing > limit:
         flags.append(Flag("warning", f"response factor {governing:.4g} above {limit:g}, the factor for {use} "
                                      f"({period}): adverse comment is likely"))
+    factors = "multiplying factors for continuous vibration (from memory)"
     if mtvv_factor is None:
-        flags.append(Flag("info", f"the response factor of the MTVV needs {BASE_WEIGHTING[direction]} for "
-                                  f"{direction} vibration: bands only"))
-    elif mtvv_factor > 2 * band_factor:
-        flags.append(Flag("info", "intermittent vibration: the band response factor averages the quiet spells "
-                                  "of the record; the MTVV one is its worst second"))
-    flags.append(Flag("info", f"multiplying factors for continuous vibration (from memory); factors for "
-                              "intermittent or impulsive vibration differ"))
+        flags.append(Flag("info", f"{factors}; the response factor of the MTVV needs {BASE_WEIGHTING[direction]} "
+                                  f"for {direction} vibration: bands only"))
+    elif mtvv_factor > INTERMITTENT * band_factor:
+        flags.append(Flag("info", f"{factors}; this vibration comes and goes: the band response factor averages "
+                                  "the quiet spells of the record, the MTVV one is its worst second"))
+    else:
+        flags.append(Flag("info", factors))
     if lowest > 1.0:
         flags.append(Flag("info", f"bands from {lowest:.3g} Hz: a record of {duration:.3g} s resolves no lower"))
     if peak > LOUD_ACCELERATION:
