@@ -259,3 +259,12 @@ def test_records_too_coarse_or_short_exit_2_in_one_line(tmp_path: Path, capsys: 
 def test_a_silent_record_is_refused(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
     code, _, err = cli(capsys, sine_file(tmp_path, 0.0, 8.0, duration=20.0))
     assert code == 2 and "zero throughout" in err and len(err.strip().splitlines()) == 1
+
+
+def test_a_short_record_starts_its_bands_where_it_resolves_them(tmp_path: Path) -> None:
+    result = run(sine_file(tmp_path, 0.02, 6.25, duration=8.0))  # whole cycles: no leakage out of the 6.3 Hz band
+    # Source: IEC 61260 band edges centre x 10^(+-1/20): a band needs 3 spectral lines of 1/8 Hz, so a centre of
+    # at least 3 / (8 x 0.2308) = 1.63 Hz; the next base-10 centre is 10^(3/10) = 2 Hz
+    assert result.series["band_frequency"][0] == pytest.approx(10**0.3)
+    assert any("bands from 2 Hz" in flag.text for flag in result.flags)
+    assert si(result, "response_factor") == pytest.approx(0.02 / math.sqrt(2) / 5e-3, rel=0.01)
