@@ -40,6 +40,7 @@ _UNIT_NAMES = {
     "m/s^2": "m/s^2", "mm/s^2": "mm/s^2", "g0": "g", "N*s/m": "N s/m", "kN*s/m": "kN s/m",
     "lbf*s/in": "lbf s/in", "kip*s/in": "kip s/in", "kg*m": "kg m", "kg*mm": "kg mm",
     "lb*in": "lb in", "oz*in": "oz in", "%": "%", "": "", "um": "µm", "t/m": "t/m",
+    "m/s^1.75": "m/s^1.75",
 }
 
 
@@ -64,6 +65,8 @@ KINDS: dict[str, Kind] = {k.name: k for k in (
           "'0.05 m/s' or '5 mm/s'"),
     _kind("acceleration", "acceleration", "[length]/[time]^2", "m/s^2", ("m/s^2", "mm/s^2"), ("g0",),
           "'0.25 g' or '2.45 m/s^2'"),
+    _kind("vibration_dose", "vibration dose value", "[length]/[time]^1.75", "m/s^1.75", ("m/s^1.75",),
+          ("m/s^1.75",), "'0.4 m/s^1.75'"),
     _kind("damping_coefficient", "damping coefficient", f"{FORCE}*[time]/[length]", "N*s/m",
           ("kN*s/m", "N*s/m"), ("kip*s/in", "lbf*s/in"), "'35 kN s/m'"),
     _kind("ratio", "ratio", "", "", ("%",), ("%",), "'3 %' or '0.03'", ratio=True),
