@@ -87,7 +87,6 @@ def compute(inputs: Inputs) -> Result:
                                          "extrapolated"))
     limit = inputs.value("limit", positive=True) if inputs.has("limit") else None
     if limit is not None:
-        values["limit"] = quantity("Limit PPV", "velocity", limit)
         try:
             values["limit_distance"] = quantity("Limit met beyond", "length", reach(limit))
         except ValueError as error:

@@ -24,7 +24,7 @@ def draw_ppv(plt: Any, result: Result, system: str) -> None:
     """Predicted PPV against distance (log-log), the limit PPV as a line, the distance given marked X."""
     distance = np.asarray(result.series["distance"])
     ppv = np.asarray(result.series["ppv"])
-    limit = result.number("limit")
+    limit = result.inputs["limit"].value if "limit" in result.inputs else None
     given = result.number("ppv")
     reference = given if given is not None else limit if limit is not None else float(np.median(ppv))
     y_scale, y_unit = axis_scale("velocity", system, reference)
