@@ -5,8 +5,14 @@ from __future__ import annotations
 import math
 from typing import TYPE_CHECKING
 
-from fieldmode.calc.checks.machine import (BALANCE_REFERENCE, balance_flag, balance_values, grade_fields,
-                                           grade_unbalance, rotor_mass_unused)
+from fieldmode.calc.checks.machine import (
+    BALANCE_REFERENCE,
+    balance_flag,
+    balance_values,
+    grade_fields,
+    grade_unbalance,
+    rotor_mass_unused,
+)
 from fieldmode.calc.framework import plausible
 from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.meaning import MACHINE, STRUCTURE, Meaning

@@ -7,8 +7,14 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
-from fieldmode.calc.checks.machine import (BALANCE_REFERENCE, balance_flag, balance_values, grade_fields,
-                                           grade_unbalance, rotor_mass_unused)
+from fieldmode.calc.checks.machine import (
+    BALANCE_REFERENCE,
+    balance_flag,
+    balance_values,
+    grade_fields,
+    grade_unbalance,
+    rotor_mass_unused,
+)
 from fieldmode.calc.framework import plausible
 from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.meaning import MACHINE, MOUNTS, Meaning

@@ -202,8 +202,8 @@ def _severity_flags(severity: machine.Severity) -> list[Flag]:
         flags.append(Flag("warning", f"zone {severity.zone}: {severity.meaning}"))
     else:
         flags.append(Flag("info", f"zone {severity.zone}: {severity.meaning}"))
-    flags.append(Flag("caution", f"the zone boundaries are not confirmed against a copy ({severity.machine.source}): check them "
-                                 "against the standard and the machine's own acceptance values"))
+    flags.append(Flag("caution", f"the zone boundaries are not confirmed against a copy ({severity.machine.source}): "
+                                 "check them against the standard and the machine's own acceptance values"))
     flags.append(Flag("info", "the velocity is read as broadband r.m.s. on the bearing housing; a peak reading is "
                               "not converted (for a pure sine r.m.s. = peak / sqrt(2))"))
     return flags

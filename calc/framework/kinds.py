@@ -39,7 +39,8 @@ PRESSURE = "[mass]/[length]/[time]**2"
 _UNIT_NAMES = {
     "m/s^2": "m/s^2", "mm/s^2": "mm/s^2", "g0": "g", "N*s/m": "N s/m", "kN*s/m": "kN s/m",
     "lbf*s/in": "lbf s/in", "kip*s/in": "kip s/in", "kg*m": "kg m", "kg*mm": "kg mm",
-    "lb*in": "lb in", "oz*in": "oz in", "g*mm": "g mm", "ft*lbf": "ft lbf", "kip*ft": "kip ft", "%": "%", "": "", "um": "µm", "t/m": "t/m",
+    "lb*in": "lb in", "oz*in": "oz in", "g*mm": "g mm", "ft*lbf": "ft lbf", "kip*ft": "kip ft", "%": "%", "": "",
+    "um": "µm", "t/m": "t/m",
 }
 
 

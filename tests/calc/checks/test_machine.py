@@ -25,9 +25,10 @@ BALANCE = {"velocity": "", "grade": "G 6.3", "rotor_mass": "250 kg", "speed": "1
 
 
 def test_hand_figures_are_those_of_the_text() -> None:
-    assert HAND_UNBALANCE * 1e6 == pytest.approx(10372, abs=1)
-    assert HAND_ECCENTRICITY * 1e6 == pytest.approx(41.49, abs=0.01)
-    assert HAND_FORCE == pytest.approx(239.2, abs=0.1)
+    grams_mm, micrometres, newtons = HAND_UNBALANCE * 1e6, HAND_ECCENTRICITY * 1e6, HAND_FORCE
+    assert grams_mm == pytest.approx(10372, abs=1)
+    assert micrometres == pytest.approx(41.49, abs=0.01)
+    assert newtons == pytest.approx(239.2, abs=0.1)
 
 
 def test_balance_grade_by_hand() -> None:
