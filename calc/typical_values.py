@@ -137,9 +137,9 @@ FREQUENCY_BANDS = Table("activity", "Walking, running and jumping frequencies", 
 
 
 BALANCE_GRADES = Table("balance", "Balance quality grades by machine type",
-                       tuple(Row(machine, f"G {grade:g}", "the next grade up or down may be chosen", source)
+                       tuple(Row(machine, f"G {grade:g}", f"e Omega {grade:g} mm/s", source)
                              for machine, grade, source in TYPICAL_GRADES),
-                       "the usual grade of that machine type")
+                       "the usual grade of that machine type (the next grade up or down may suit)")
 
 
 def table_for(name: str, kind: str) -> Table | None:

@@ -174,7 +174,6 @@ def _severity_values(severity: machine.Severity) -> dict[str, Value]:
     bounds = severity.machine
     values = {
         "zone": word("Severity zone", severity.zone),
-        "zone_meaning": word("Zone means", severity.meaning),
         "boundary_ab": quantity("Zone A/B boundary", "velocity", bounds.ab),
         "boundary_bc": quantity("Zone B/C boundary", "velocity", bounds.bc),
         "boundary_cd": quantity("Zone C/D boundary", "velocity", bounds.cd),

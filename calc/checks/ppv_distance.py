@@ -31,9 +31,8 @@ USED = {
 }
 """The method's own fields (besides method, distance and limit); the others are ignored."""
 
-PPV_CAUTION = ("Screening prediction, not a design: an empirical estimate of ground vibration; guideline values "
-               "are screening references; the building's condition, local rules and a licensed engineer govern, "
-               "and monitoring on site decides.")
+PPV_CAUTION = ("Screening prediction, not a design: guideline values are screening references; building "
+               "condition, local rules and a licensed engineer govern.")
 
 FIELDS = (
     Field("method", "Method", "choice", VIBRATORY, choices=METHODS,
