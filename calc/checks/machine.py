@@ -7,6 +7,7 @@ The balance fields and their reading (:data:`GRADE_FIELDS`, :func:`grade_unbalan
 
 from __future__ import annotations
 
+import math
 import re
 from dataclasses import dataclass
 from typing import TYPE_CHECKING
@@ -71,11 +72,10 @@ def read_grade(inputs: Inputs) -> float:
     if match is None:
         raise inputs.error("grade", f"not a balance grade: write it as G 6.3 or 6.3 ({_GRADES_HELP})")
     number = float(match.group(1))
-    try:
-        machine.grade_velocity(number)
-    except ValueError:
-        raise inputs.error("grade", f"G {number:g} is not an ISO 21940-11 grade: {_GRADES_HELP}") from None
-    return number
+    for known in machine.BALANCE_GRADES:
+        if math.isclose(number, known, rel_tol=1e-9):
+            return known
+    raise inputs.error("grade", f"G {number:g} is not an ISO 21940-11 grade: {_GRADES_HELP}")
 
 
 def grade_unbalance(inputs: Inputs, speed: float, mass_field: str | None = None) -> Balance:
@@ -154,6 +154,7 @@ def compute(inputs: Inputs) -> Result:
         speed = inputs.value("speed", positive=True)
         balance = grade_unbalance(inputs, speed)
         values.update(balance_values(balance, UNBALANCE))
+        series.update(_grade_series(balance.grade, speed))
         flags.append(balance_flag(balance, speed))
         flags.append(Flag("info", "the next grade up or down may suit the case; the machine's own standard or "
                                   "the maker's tolerance govern"))
@@ -219,6 +220,20 @@ def _zone_series(severity: machine.Severity) -> dict[str, np.ndarray]:
     return {"velocity_grid": grid, "zone_number": zone.astype(float)}
 
 
+def _grade_series(grade: float, speed: float) -> dict[str, np.ndarray]:
+    """Permissible eccentricity e_per = G / Omega of the grade and of the grades either side of it, over
+    speeds from a tenth of the operating speed to ten times it (Hz)."""
+    grid = np.geomspace(speed / 10.0, speed * 10.0, 61)
+    omega = 2 * np.pi * grid
+    index = machine.BALANCE_GRADES.index(grade)
+    series = {"speed_grid": grid, "grade_eccentricity": machine.grade_velocity(grade) / omega}
+    neighbours = {"coarser_eccentricity": index - 1, "finer_eccentricity": index + 1}
+    for name, other in neighbours.items():
+        if 0 <= other < len(machine.BALANCE_GRADES):
+            series[name] = machine.grade_velocity(machine.BALANCE_GRADES[other]) / omega
+    return series
+
+
 SPEC = CheckSpec(
     id="machine",
     title="Machine vibration and balance",
@@ -228,5 +243,9 @@ SPEC = CheckSpec(
     series=(
         Series("velocity_grid", "Velocity, r.m.s.", "velocity"),
         Series("zone_number", "Zone (1 A, 2 B, 3 C, 4 D)", "number", "velocity_grid"),
+        Series("speed_grid", "Speed", "frequency"),
+        Series("grade_eccentricity", "Permissible eccentricity", "length", "speed_grid"),
+        Series("coarser_eccentricity", "Eccentricity, next grade up", "length", "speed_grid"),
+        Series("finer_eccentricity", "Eccentricity, next grade down", "length", "speed_grid"),
     ),
 )

@@ -35,5 +35,34 @@ def draw_zones(plt: Any, result: Result, system: str) -> None:
     plt.xlabel(f"velocity r.m.s. ({unit})")
 
 
-PANELS = (draw_zones,)
+def draw_balance(plt: Any, result: Result, system: str) -> None:
+    """Permissible eccentricity against speed (log-log) for the grade, the grades either side dotted, and the
+    operating speed marked X."""
+    if "speed_grid" not in result.series:
+        plt.title("No balance grade given")
+        return
+    speed = np.asarray(result.series["speed_grid"]) * 60.0
+    own = np.asarray(result.series["grade_eccentricity"])
+    at = result.number("grade_eccentricity") or float(np.median(own))
+    scale, unit = axis_scale("length", system, at)
+    for name in ("coarser_eccentricity", "finer_eccentricity"):
+        if name in result.series:
+            plt.plot(speed.tolist(), (np.asarray(result.series[name]) * scale).tolist(), marker=".")
+    plt.plot(speed.tolist(), (own * scale).tolist(), marker="braille")
+    operating = result.inputs["speed"].value if "speed" in result.inputs else None
+    if operating is not None:
+        plt.scatter([operating * 60.0], [at * scale], marker=OPERATING_MARKER)
+    plt.xscale("log")
+    plt.yscale("log")
+    ticks = log_ticks(float(speed[0]), float(speed[-1]))
+    plt.xticks(ticks, [f"{t:g}" for t in ticks])
+    low = min(float(np.min(result.series[name])) for name in result.series if name.endswith("eccentricity"))
+    high = max(float(np.max(result.series[name])) for name in result.series if name.endswith("eccentricity"))
+    ticks = log_ticks(low * scale, high * scale)
+    plt.yticks(ticks, [f"{t:g}" for t in ticks])
+    plt.title(f"e_per ({unit}) of the grade, . next grades")
+    plt.xlabel("speed (rpm)")
+
+
+PANELS = (draw_zones, draw_balance)
 """The chart panels of the check, in the order they are shown."""

@@ -37,7 +37,20 @@ def test_balance_grade_by_hand() -> None:
     assert result.number("grade_unbalance") == pytest.approx(HAND_UNBALANCE, rel=1e-4)
     assert result.number("grade_eccentricity") == pytest.approx(HAND_ECCENTRICITY, rel=1e-4)
     assert result.number("grade_force") == pytest.approx(HAND_FORCE, rel=1e-4)
-    assert "zone" not in result.values and not result.series
+    assert "zone" not in result.values and "velocity_grid" not in result.series
+
+
+def test_grade_curves_fall_as_one_over_speed() -> None:
+    # Source: ISO 21940-11:2016 (confirmed in two reproductions): e_per = G / Omega; G 16 and G 2.5 are the grades
+    # either side of G 6.3
+    result = SPEC.evaluate(BALANCE)
+    speed = result.series["speed_grid"]
+    omega = 2 * math.pi * speed
+    assert result.series["grade_eccentricity"] == pytest.approx(6.3e-3 / omega, rel=1e-12)
+    assert result.series["coarser_eccentricity"] == pytest.approx(16e-3 / omega, rel=1e-12)
+    assert result.series["finer_eccentricity"] == pytest.approx(2.5e-3 / omega, rel=1e-12)
+    coarsest = SPEC.evaluate(BALANCE | {"grade": "G 4000"})
+    assert "coarser_eccentricity" not in coarsest.series and "finer_eccentricity" in coarsest.series
 
 
 @pytest.mark.parametrize("text", ["G 6.3", "g6.3", "6.3", " G 6.3 mm/s "])

@@ -11,7 +11,7 @@ CHART_VIEW = (49, 16)
 
 
 def test_the_zones_are_labelled_and_the_measured_value_marked_at_80x24() -> None:
-    (picture,) = draw_panels("machine", size=CHART_VIEW)
+    picture, _ = draw_panels("machine", size=CHART_VIEW)
     assert "Zone by r.m.s. velocity, X measured" in picture and "velocity r.m.s. (mm/s)" in picture
     rows = picture.splitlines()
     for zone in "ABCD":
@@ -23,7 +23,17 @@ def test_the_zones_are_labelled_and_the_measured_value_marked_at_80x24() -> None
 
 
 def test_us_units_and_no_velocity() -> None:
-    (picture,) = draw_panels("machine", system="us", size=CHART_VIEW)
+    picture, _ = draw_panels("machine", system="us", size=CHART_VIEW)
     assert "velocity r.m.s. (in/s)" in picture
-    (picture,) = draw_panels("machine", {"velocity": ""}, size=CHART_VIEW)
+    picture, _ = draw_panels("machine", {"velocity": ""}, size=CHART_VIEW)
     assert "No measured velocity given" in picture
+
+
+def test_balance_panel_draws_the_grade_its_neighbours_and_the_speed() -> None:
+    _, picture = draw_panels("machine", size=CHART_VIEW)
+    assert "e_per (µm) of the grade, . next grades" in picture and "speed (rpm)" in picture
+    area = plot_area(picture)
+    assert any(OPERATING_MARKER in row for row in area)
+    assert sum(row.count(".") for row in area) > 40  # the grades either side, dotted
+    _, picture = draw_panels("machine", {"grade": ""}, size=CHART_VIEW)
+    assert "No balance grade given" in picture
