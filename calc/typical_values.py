@@ -11,6 +11,8 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
+from fieldmode.calc.physics.machine import TYPICAL_GRADES
+
 
 @dataclass(frozen=True)
 class Row:
@@ -134,8 +136,16 @@ FREQUENCY_BANDS = Table("activity", "Walking, running and jumping frequencies", 
 
 
 
+BALANCE_GRADES = Table("balance", "Balance quality grades by machine type",
+                       tuple(Row(machine, f"G {grade:g}", f"e Omega {grade:g} mm/s", source)
+                             for machine, grade, source in TYPICAL_GRADES),
+                       "the usual grade of that machine type (the next grade up or down may suit)")
+
+
 def table_for(name: str, kind: str) -> Table | None:
     """The table that can fill a field of this name and kind, or None."""
+    if name == "grade" and kind == "text":
+        return BALANCE_GRADES
     if kind == "ratio" and "damping" in name:
         return DAMPING
     if kind == "modulus":

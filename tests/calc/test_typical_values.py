@@ -107,3 +107,15 @@ def test_table_for_a_field_by_name_and_kind():
     assert all(kind in KINDS for kind in ("ratio", "modulus", "frequency"))
     picks = choices_table("Element", ("beam", "columns"))
     assert [row.fill for row in picks.rows] == ["beam", "columns"]
+
+
+def test_balance_grades_by_machine_type():
+    from fieldmode.calc.typical_values import BALANCE_GRADES
+
+    assert table_for("grade", "text") is BALANCE_GRADES
+    grades = {row.description: row.fill for row in BALANCE_GRADES.rows}
+    # Source: ISO 21940-11:2016 Table 1 (confirmed in two reproductions): fans and pumps G 6.3, compressors and
+    # turbines G 2.5
+    assert grades["fans"] == grades["pumps"] == "G 6.3"
+    assert grades["compressors"] == "G 2.5"
+    assert all(row.source.startswith("ISO 21940-11") for row in BALANCE_GRADES.rows)
