@@ -8,7 +8,7 @@ import numpy as np
 
 from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.meaning import STRUCTURE, Meaning
-from fieldmode.calc.framework.result import Flag, Reference, Result, Value, quantity, word
+from fieldmode.calc.framework.result import Flag, Reference, Result, Value, word
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 
 if TYPE_CHECKING:
