@@ -101,15 +101,14 @@ def _direction_values(direction: str, frequencies: np.ndarray, bands: tuple[Band
         flags.extend(_frequency_flags(direction, f, inside, bands))
         flags.extend(notes)
     prefix = "" if direction == "vertical" else "lateral_"
-    lead = "" if direction == "vertical" else "Lateral "
     names = _source_names()
     values = {f"{prefix}bands": word(f"{direction.capitalize()} bands", " | ".join(described))}
     for source in footfall.sources_of(bands):
         margins = [footfall.source_margin(float(f), bands, source) for f in frequencies]
-        label = f"{lead}{names[source]} margin"
+        label = f"{names[source]} margin" if direction == "vertical" else f"Lateral {names[source]}"
         values[f"{prefix}margin_{_key(names[source])}"] = word(label[0].upper() + label[1:],
                                                                _margin_text(frequencies, margins))
-    values[f"{prefix}comfort_check"] = word(f"{direction.capitalize()} comfort check", " | ".join(verdicts))
+    values[f"{prefix}comfort_check"] = word(f"{direction.capitalize()} comfort", " | ".join(verdicts))
     return values
 
 
