@@ -62,15 +62,21 @@ _ALLEN_MURRAY = f"{floor_walking.ALLEN_MURRAY} (confirmed in a secondary table)"
 _SCI_P354_DAMPING = f"SCI P354, Design of Floors for Vibration, damping by fit-out {FROM_MEMORY}"
 
 SCI_P354_FLOOR_DAMPING: tuple[tuple[str, float], ...] = (
-    ("bare floor, little furniture", 0.011),
+    ("bare, little furniture", 0.011),
     ("fitted out and furnished, in use", 0.03),
-    ("finishes and partitions across the mode", 0.045),
+    ("finishes, partitions across the mode", 0.045),
 )
 """Floor damping ratios by fit-out, SCI P354 (from memory)."""
 
 
+FLOOR_WORDS = {"bare": "bare: few ceilings or ducts", "fitted out": "fitted out: offices, homes, churches",
+               "full-height partitions": "full-height partitions", "mall": "shopping malls"}
+"""Short descriptions of the Allen & Murray floor classes of :data:`floor_walking.FLOOR_DAMPING` for the table."""
+
+
 def _floor_rows() -> tuple[Row, ...]:
-    rows = [Row(f"floor, {name}: {what}", _percent(ratio), f"{100 * ratio:g} %, Allen & Murray", _ALLEN_MURRAY)
+    rows = [Row(f"floor, {FLOOR_WORDS.get(name, what)}", _percent(ratio), f"{100 * ratio:g} %, Allen & Murray",
+                f"{_ALLEN_MURRAY}: {what}")
             for name, (ratio, what) in floor_walking.FLOOR_DAMPING.items() if name != "footbridge"]
     rows += [Row(f"floor, {what}", _percent(ratio), f"{100 * ratio:g} %, SCI P354", _SCI_P354_DAMPING)
              for what, ratio in SCI_P354_FLOOR_DAMPING]

@@ -135,10 +135,10 @@ def test_log_decrement_conversion_is_the_exact_relation():
 
 @pytest.mark.parametrize(("part", "percent"), [
     # Source: Allen & Murray (1993), confirmed in a secondary table
-    ("few non-structural components", 2), ("offices, residences, churches", 3), ("full-height partitions", 5),
+    ("bare: few ceilings or ducts", 2), ("offices, homes, churches", 3), ("full-height partitions", 5),
     ("shopping malls", 2),
     # From memory: SCI P354, damping by fit-out
-    ("bare floor, little furniture", 1.1), ("fitted out and furnished", 3), ("partitions across the mode", 4.5),
+    ("bare, little furniture", 1.1), ("fitted out and furnished", 3), ("partitions across the mode", 4.5),
 ])
 def test_floor_damping_bare_to_fitted_out(part, percent):
     row = next(row for row in FLOOR_DAMPING.rows if part in row.description)
