@@ -346,7 +346,7 @@ class FieldmodeApp(App[int]):
             self.say("Move to a field first (Tab), then F7.")
             return
         spec_field = row.field
-        table = table_for(spec_field.name, spec_field.kind)
+        table = table_for(spec_field, view.spec.id)
         if table is None and spec_field.choices:
             table = choices_table(spec_field.label, spec_field.choices)
         if table is None:

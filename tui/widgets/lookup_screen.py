@@ -13,7 +13,18 @@ from fieldmode.tui.widgets.dialog import Dialog
 
 
 class LookupScreen(Dialog[Row | None]):
-    """Up/Down to choose, Enter fills the field, Escape leaves it as it was."""
+    """Up/Down to choose, Enter fills the field, Escape leaves it as it was.
+
+    Under the table: the notes its source prints beside it, then the highlighted row's description,
+    tabulated value and source in full (the columns are cut at 80 columns)."""
+
+    DEFAULT_CSS = """
+    LookupScreen .lookup-notes { height: auto; max-height: 2; }
+    LookupScreen .lookup-source { height: auto; max-height: 2; }
+    """
+
+    ROWS_WITH_NOTES = 9
+    """Table rows shown (with its header) when notes are shown too, so the dialog stays within 80x24."""
 
     BINDINGS = [Binding("escape", "dismiss", "close", id="table.close")]
 
@@ -28,10 +39,14 @@ class LookupScreen(Dialog[Row | None]):
             yield Static(Text(f"Enter fills the field, Escape closes. Fills {self.table.fills}."),
                          classes="dialog-note")
             grid: DataTable[str] = DataTable(cursor_type="row")
-            grid.add_columns("fills", "tabulated", "what")
+            grid.add_columns("fills", "what", "tabulated")
             for row in self.table.rows:
-                grid.add_row(row.fill, row.note, row.description)
+                grid.add_row(row.fill, row.description, row.note)
+            if self.table.notes:
+                grid.styles.max_height = self.ROWS_WITH_NOTES
             yield grid
+            if self.table.notes:
+                yield Static(Text(" ".join(self.table.notes)), classes="dialog-note lookup-notes")
             yield Static("", classes="dialog-note lookup-source")
 
     def on_mount(self) -> None:
