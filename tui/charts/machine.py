@@ -33,6 +33,7 @@ def draw_zones(plt: Any, result: Result, system: str) -> None:
     plt.ylim(0.5, 4.5)
     plt.title(f"Zone by r.m.s. velocity, {OPERATING_MARKER} measured")
     plt.xlabel(f"velocity r.m.s. ({unit})")
+    plt.ylabel("zone")
 
 
 def draw_balance(plt: Any, result: Result, system: str) -> None:
@@ -60,8 +61,9 @@ def draw_balance(plt: Any, result: Result, system: str) -> None:
     high = max(float(np.max(result.series[name])) for name in result.series if name.endswith("eccentricity"))
     ticks = log_ticks(low * scale, high * scale)
     plt.yticks(ticks, [f"{t:g}" for t in ticks])
-    plt.title(f"e_per ({unit}) of the grade, . next grades")
+    plt.title("Permissible eccentricity, . next grades")
     plt.xlabel("speed (rpm)")
+    plt.ylabel(f"e_per ({unit})")
 
 
 PANELS = (draw_zones, draw_balance)

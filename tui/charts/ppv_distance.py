@@ -42,8 +42,9 @@ def draw_ppv(plt: Any, result: Result, system: str) -> None:
     plt.yscale("log")
     plt.xticks(*_labelled(log_ticks(float(x[0]), float(x[-1]))))
     plt.yticks(*_labelled(log_ticks(low, high)))
-    plt.title(f"PPV ({y_unit}), {OPERATING_MARKER} given, - limit")
+    plt.title(f"Predicted PPV, {OPERATING_MARKER} given, - limit")
     plt.xlabel(f"distance ({x_unit})")
+    plt.ylabel(f"PPV ({y_unit})")
 
 
 def _labelled(ticks: list[float]) -> tuple[list[float], list[str]]:

@@ -31,7 +31,7 @@ def test_us_units_and_no_velocity() -> None:
 
 def test_balance_panel_draws_the_grade_its_neighbours_and_the_speed() -> None:
     _, picture = draw_panels("machine", size=CHART_VIEW)
-    assert "e_per (µm) of the grade, . next grades" in picture and "speed (rpm)" in picture
+    assert "Permissible eccentricity, . next grades" in picture and "e_per (µm)" in picture and "speed (rpm)" in picture
     area = plot_area(picture)
     assert any(OPERATING_MARKER in row for row in area)
     assert sum(row.count(".") for row in area) > 40  # the grades either side, dotted

@@ -14,7 +14,7 @@ CHART_VIEW = (49, 16)
 def test_the_panel_shows_the_limit_the_distance_and_its_units_at_80x24() -> None:
     # Common practice (no source): a limit is a line, the point asked about a letter, readable without colour
     (picture,) = draw_panels("ppv-distance", size=CHART_VIEW)
-    assert "PPV (mm/s), X given, - limit" in picture and "distance (m)" in picture
+    assert "Predicted PPV, X given, - limit" in picture and "distance (m)" in picture and "PPV (mm/s)" in picture
     area = plot_area(picture)
     assert any(row.count("-") > 30 for row in area)
     assert any(OPERATING_MARKER in row for row in area)
