@@ -35,6 +35,27 @@ class _Parser(argparse.ArgumentParser):
         self.exit(EXIT_INPUT, f"{self.prog}: {message} (see {self.prog} --help)\n")
 
 
+_GIVEN = "_options_given"
+"""Attribute of the parsed namespace holding the destinations of the options given so far."""
+
+
+class _Once(argparse.Action):
+    """Store an option's value, refusing the option a second time, however it is spelled.
+
+    argparse keeps the last of a repeated option, so `--mass 10t --mass 12t` would compute with
+    12 t and say nothing. Abbreviations (`--ma`) and `--mass=10t` reach the same action, so each
+    is caught; the message names the option as `--help` lists it.
+    """
+
+    def __call__(self, parser: argparse.ArgumentParser, namespace: argparse.Namespace,
+                 values: object, option_string: str | None = None) -> None:
+        given = namespace.__dict__.setdefault(_GIVEN, set())
+        if self.dest in given:
+            parser.error(f"{self.option_strings[0]} given more than once: give it once")
+        given.add(self.dest)
+        setattr(namespace, self.dest, values)
+
+
 def build_parser(only: str | None = None) -> argparse.ArgumentParser:
     """The command line: `checks`, `convert`, and one subcommand per check spec.
 
@@ -71,12 +92,12 @@ def _add_check(commands: argparse._SubParsersAction, spec: CheckSpec) -> None:  
         if spec_field.positional:
             sub.add_argument(spec_field.name, help=_help(text))
         else:
-            sub.add_argument(spec_field.option, dest=spec_field.name, metavar="VALUE", help=_help(text))
+            sub.add_argument(spec_field.option, dest=spec_field.name, metavar="VALUE", action=_Once, help=_help(text))
     sub.add_argument("--json", action="store_true", help="print one JSON object (SI values, curves included)")
-    sub.add_argument("--csv", metavar="FILE", help="write the curves as CSV columns (SI) to FILE, or - for "
-                                                   "standard output instead of the text")
+    sub.add_argument("--csv", metavar="FILE", action=_Once,
+                     help="write the curves as CSV columns (SI) to FILE, or - for standard output instead of the text")
     sub.add_argument("--overwrite", action="store_true", help="with --csv: replace an existing FILE")
-    sub.add_argument("--units", choices=("si", "us"), default="si", help="units of the text output")
+    sub.add_argument("--units", choices=("si", "us"), default="si", action=_Once, help="units of the text output")
 
 
 def _help(text: str) -> str:
