@@ -89,7 +89,10 @@ def _add_check(commands: argparse._SubParsersAction, spec: CheckSpec) -> None:  
             text += f"; {spec_field.help}"
         if spec_field.group:
             text += f" (alternative: one of the '{spec_field.group}' options)"
-        if spec_field.positional:
+        if spec_field is spec.record_field:
+            text += "; a folder or several files run each record (in a folder: files ending .csv .txt .tsv .dat)"
+            sub.add_argument(spec_field.name, nargs="+", help=_help(text))
+        elif spec_field.positional:
             sub.add_argument(spec_field.name, help=_help(text))
         else:
             sub.add_argument(spec_field.option, dest=spec_field.name, metavar="VALUE", action=_Once, help=_help(text))
@@ -120,11 +123,19 @@ def run(argv: Sequence[str]) -> int:
     if args.command == "convert":
         return _convert(args.text, args.unit)
     spec = load(args.command)
+    texts = {f.name: getattr(args, f.name) for f in spec.fields if getattr(args, f.name) is not None}
+    record = spec.record_field
+    if record is not None:
+        from fieldmode.tui.many import is_many, run_many
+
+        if is_many(texts[record.name]):
+            others = {name: text for name, text in texts.items() if name != record.name}
+            return run_many(spec, texts[record.name], others, json_lines=args.json, csv=args.csv, system=args.units)
+        texts[record.name] = texts[record.name][0]
     if args.csv is not None:
         from fieldmode.tui.curves import STDOUT, check_target, write_curves
 
         check_target(args.csv, overwrite=args.overwrite, json=args.json)
-    texts = {f.name: getattr(args, f.name) for f in spec.fields if getattr(args, f.name) is not None}
     result = spec.evaluate(texts, args.units)
     if args.csv is not None:
         write_curves(spec, result, args.csv)
@@ -217,18 +228,23 @@ def main(argv: Sequence[str] | None = None) -> int:
 
 def _failed(error: Exception) -> int:
     """Report a failure on one line of stderr; return its exit status."""
+    line, status = failure(error)
+    print(line, file=sys.stderr)
+    return status
+
+
+def failure(error: Exception) -> tuple[str, int]:
+    """The one line that reports ``error`` and the exit status it gives (2 bad input or file, 1 a bug)."""
     from fieldmode.calc.framework.units import InputError
     from fieldmode.tui.curves import CurvesError
+    from fieldmode.tui.many import ManyError
 
-    if isinstance(error, InputError | CurvesError):
-        print(f"fieldmode: {printable(str(error))}", file=sys.stderr)
-        return EXIT_INPUT
+    if isinstance(error, InputError | CurvesError | ManyError):
+        return f"fieldmode: {printable(str(error))}", EXIT_INPUT
     if isinstance(error, OSError):
-        print(printable(f"fieldmode: {error.strerror or error}: {error.filename or ''}".rstrip(": ")), file=sys.stderr)
-        return EXIT_INPUT
-    print(printable(f"fieldmode {__version__}: internal fault ({type(error).__name__}: {error}); "
-                    "please report it with the command you ran"), file=sys.stderr)
-    return EXIT_FAULT
+        return printable(f"fieldmode: {error.strerror or error}: {error.filename or ''}".rstrip(": ")), EXIT_INPUT
+    return (printable(f"fieldmode {__version__}: internal fault ({type(error).__name__}: {error}); "
+                      "please report it with the command you ran"), EXIT_FAULT)
 
 
 if __name__ == "__main__":
