@@ -102,6 +102,7 @@ def run_many(spec: CheckSpec, typed: Sequence[str], texts: Mapping[str, str], *,
     paths = record_paths(typed)
     jobs = [{**texts, record.name: path} for path in paths]
     names = () if json_lines else spec.key_results
+    gc.enable()  # paused while the command line loaded; a long run makes garbage to collect
     progress = Progress(sys.stderr, len(jobs))
     outcomes: list[Outcome] = []
     for outcome in _outcomes(spec.id, jobs, record.name, system, json_lines, names, progress):
@@ -121,24 +122,31 @@ def run_many(spec: CheckSpec, typed: Sequence[str], texts: Mapping[str, str], *,
 
 def _outcomes(check_id: str, jobs: list[dict[str, str]], record: str, system: str, json_lines: bool,
               names: tuple[str, ...], progress: Progress) -> Iterator[Outcome]:
-    """Each job's outcome in the order of ``jobs``, as soon as it and every one before it are done."""
-    workers = min(os.cpu_count() or 1, len(jobs))
-    if workers == 1:
-        for done, job in enumerate(jobs, 1):
-            outcome = run_one(check_id, job, record, system, json_lines, names)
+    """Each job's outcome in the order of ``jobs``, as soon as it and every one before it are done.
+
+    The first record runs in this process: it loads what the check needs (the unit reader, scipy),
+    which the worker processes then inherit instead of each loading it again. The others run on
+    the machine's cores, in order of submission.
+    """
+    yield run_one(check_id, jobs[0], record, system, json_lines, names)
+    progress.show(1)
+    rest = jobs[1:]
+    workers = min(os.cpu_count() or 1, len(rest))
+    if workers <= 1:
+        for done, job in enumerate(rest, 2):
+            yield run_one(check_id, job, record, system, json_lines, names)
             progress.show(done)
-            yield outcome
         return
     from concurrent.futures import ProcessPoolExecutor  # loads multiprocessing: only for several records
 
     executor = ProcessPoolExecutor(max_workers=workers, initializer=_start_worker)
     try:
-        futures = [executor.submit(run_one, check_id, job, record, system, json_lines, names) for job in jobs]
+        futures = [executor.submit(run_one, check_id, job, record, system, json_lines, names) for job in rest]
         pending: set[Future[Outcome]] = set(futures)
         given = 0
         while given < len(futures):
-            finished, pending = wait(pending, return_when=FIRST_COMPLETED)
-            progress.show(len(futures) - len(pending))
+            _, pending = wait(pending, return_when=FIRST_COMPLETED)
+            progress.show(1 + len(futures) - len(pending))
             while given < len(futures) and futures[given].done():
                 yield futures[given].result()
                 given += 1
@@ -151,10 +159,8 @@ def _outcomes(check_id: str, jobs: list[dict[str, str]], record: str, system: st
 
 
 def _start_worker() -> None:
-    """In each worker: Ctrl+C is the parent's to handle (it stops the workers); collect garbage again
-    (the command line pauses the collector while it loads, a worker may run many records)."""
+    """In each worker: Ctrl+C is the parent's to handle (it stops the workers)."""
     signal.signal(signal.SIGINT, signal.SIG_IGN)
-    gc.enable()
 
 
 def run_one(check_id: str, texts: Mapping[str, str], record: str, system: str, json_lines: bool,
