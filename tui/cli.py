@@ -91,7 +91,7 @@ def _add_check(commands: argparse._SubParsersAction, spec: CheckSpec) -> None:  
             text += f" (alternative: one of the '{spec_field.group}' options)"
         if spec_field is spec.record_field:
             text += "; a folder or several files run each record (in a folder: files ending .csv .txt .tsv .dat)"
-            sub.add_argument(spec_field.name, nargs="+", help=_help(text))
+            sub.add_argument(spec_field.name, nargs="+" if spec_field.required else "*", help=_help(text))
         elif spec_field.positional:
             sub.add_argument(spec_field.name, help=_help(text))
         else:
@@ -125,13 +125,15 @@ def run(argv: Sequence[str]) -> int:
     spec = load(args.command)
     texts = {f.name: getattr(args, f.name) for f in spec.fields if getattr(args, f.name) is not None}
     record = spec.record_field
-    if record is not None:
+    if record is not None and texts.get(record.name):
         from fieldmode.tui.many import is_many, run_many
 
         if is_many(texts[record.name]):
             others = {name: text for name, text in texts.items() if name != record.name}
             return run_many(spec, texts[record.name], others, json_lines=args.json, csv=args.csv, system=args.units)
         texts[record.name] = texts[record.name][0]
+    elif record is not None:
+        texts.pop(record.name, None)  # an optional record field given no file
     if args.csv is not None:
         from fieldmode.tui.curves import STDOUT, check_target, write_curves
 
