@@ -105,15 +105,20 @@ def run_many(spec: CheckSpec, typed: Sequence[str], texts: Mapping[str, str], *,
     gc.enable()  # paused while the command line loaded; a long run makes garbage to collect
     progress = Progress(sys.stderr, len(jobs))
     outcomes: list[Outcome] = []
-    for outcome in _outcomes(spec.id, jobs, record.name, system, json_lines, names, progress):
-        outcomes.append(outcome)
-        if outcome.failure:
-            progress.clear()
-            print(outcome.failure, file=sys.stderr, flush=True)
-        if json_lines and outcome.json_line:
-            progress.clear()
-            print(outcome.json_line, flush=True)
-    progress.clear()
+    try:
+        for outcome in _outcomes(spec.id, jobs, record.name, system, json_lines, names, progress):
+            outcomes.append(outcome)
+            if outcome.failure:
+                progress.clear()
+                print(outcome.failure, file=sys.stderr, flush=True)
+            if json_lines and outcome.json_line:
+                progress.clear()
+                print(outcome.json_line, flush=True)
+    except KeyboardInterrupt:
+        progress.stop()  # the count stays on its line: how far the run got
+        raise
+    finally:
+        progress.clear()
     if not json_lines:
         print("\n".join(summary_lines(spec, outcomes, system)))
     statuses = {outcome.status for outcome in outcomes}
@@ -176,8 +181,9 @@ def run_one(check_id: str, texts: Mapping[str, str], record: str, system: str, j
             return Outcome(path, json_line=json.dumps({"file": path, **result.to_dict()}, allow_nan=False))
     except Exception as error:  # one line per record, as `fieldmode CHECK FILE` would print it
         line, status = failure(error)
-        if path not in line:
-            line = line.replace("fieldmode: ", f"fieldmode: {printable(path)}: ", 1)
+        if path not in line:  # 'fieldmode: PATH: message', so every line says which record it is about
+            program, _, message = line.partition(": ")
+            line = f"{program}: {printable(path)}: {message}"
         return Outcome(path, status=status, failure=line)
     levels = [flag.level for flag in result.flags]
     worst = next((level for level in ("warning", "caution", "info") if level in levels), None)
@@ -297,6 +303,13 @@ class Progress:
             self.stream.write(f"\r{done}/{self.total} records")
             self.stream.flush()
             self.shown = True
+
+    def stop(self) -> None:
+        """End the count's line where it is (interrupted: the count says how far the run got)."""
+        if self.shown:
+            self.stream.write("\n")
+            self.stream.flush()
+            self.shown = False
 
     def clear(self) -> None:
         if self.shown:

@@ -227,3 +227,39 @@ def test_ctrl_c_stops_every_worker_and_exits_130(tmp_path: Path) -> None:
     time.sleep(0.2)
     leftover = subprocess.run(["pgrep", "-g", str(process.pid)], capture_output=True, text=True)
     assert leftover.stdout.strip() == ""
+
+
+def test_long_paths_from_two_folders_keep_their_ends_within_80_columns(capsys: pytest.CaptureFixture[str],
+                                                                      folder: Path, tmp_path: Path) -> None:
+    deep = tmp_path / ("a_folder_with_a_long_name_" * 3) / "second"
+    deep.mkdir(parents=True)
+    write_decay(deep / "heel_drop_at_the_far_end_of_the_mezzanine.csv", 6.8, 0.025)
+    typed = [str(folder / "a_bay.csv"), str(deep / "heel_drop_at_the_far_end_of_the_mezzanine.csv"),
+             str(deep / "missing_record_with_a_name_long_enough_to_need_cutting.csv")]
+    code, out, err = run(capsys, "decay", *typed)
+    assert code == 2 and err.count("\n") == 1
+    lines = out.splitlines()
+    assert max(map(len, lines)) <= 80
+    assert any(line.lstrip().startswith("...") and "mezzanine.csv" in line for line in lines)
+    assert any(line.lstrip().startswith("...") and line.endswith("cutting.csv  refused (see stderr)")
+               for line in lines)
+
+
+def test_a_fault_of_ours_in_one_record_gives_status_1_and_the_others_go_on(
+        capsys: pytest.CaptureFixture[str], folder: Path, monkeypatch: pytest.MonkeyPatch) -> None:
+    import dataclasses
+
+    from fieldmode.calc import checks
+
+    real = checks.load("decay")
+
+    def faulty(inputs):  # noqa: ANN001, ANN202
+        if inputs.text("file").endswith("b_bay.csv"):
+            raise RuntimeError("a bug")
+        return real.compute(inputs)
+
+    monkeypatch.setattr(checks, "load", lambda check_id: dataclasses.replace(real, compute=faulty))
+    code, out, err = run(capsys, "decay", str(folder), "--json")
+    assert code == 1
+    assert err.count("\n") == 1 and "internal fault" in err and "b_bay.csv" in err
+    assert [Path(json.loads(line)["file"]).name for line in out.splitlines()] == ["a_bay.csv", "c_bay.txt"]
