@@ -18,10 +18,11 @@ import signal
 import sys
 import textwrap
 from collections.abc import Iterator, Mapping, Sequence
-from concurrent.futures import FIRST_COMPLETED, Future, wait
 from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, TextIO
 
+from fieldmode.calc.records.source import STDIN
+from fieldmode.tui.cli import EXIT_FAULT, EXIT_INPUT, EXIT_OK, failure
 from fieldmode.tui.printable import printable
 
 if TYPE_CHECKING:
@@ -31,13 +32,10 @@ if TYPE_CHECKING:
 RECORD_SUFFIXES = (".csv", ".txt", ".tsv", ".dat")
 """Files in a folder taken as records (any case); files named on the command line are taken whatever
 their name."""
-STDIN = "-"
-"""The record path that means standard input (read alone, never among several)."""
 WIDTH = 80
 """Columns the table keeps to."""
 FILE_COLUMN_LEAST = 20
 """The file column keeps at least this many cells when result columns are chosen."""
-EXIT_OK, EXIT_FAULT, EXIT_INPUT = 0, 1, 2
 
 
 class ManyError(ValueError):
@@ -142,12 +140,15 @@ def _outcomes(check_id: str, jobs: list[dict[str, str]], record: str, system: st
             yield run_one(check_id, job, record, system, json_lines, names)
             progress.show(done)
         return
-    from concurrent.futures import ProcessPoolExecutor  # loads multiprocessing: only for several records
+    import multiprocessing  # loaded only for several records
+    from concurrent.futures import FIRST_COMPLETED, ProcessPoolExecutor, wait
 
-    executor = ProcessPoolExecutor(max_workers=workers, initializer=_start_worker)
+    # Forked workers inherit what the first record loaded (where fork exists, as on Linux).
+    forked = multiprocessing.get_context("fork") if "fork" in multiprocessing.get_all_start_methods() else None
+    executor = ProcessPoolExecutor(max_workers=workers, mp_context=forked, initializer=_start_worker)
     try:
         futures = [executor.submit(run_one, check_id, job, record, system, json_lines, names) for job in rest]
-        pending: set[Future[Outcome]] = set(futures)
+        pending = set(futures)
         given = 0
         while given < len(futures):
             _, pending = wait(pending, return_when=FIRST_COMPLETED)
@@ -172,7 +173,6 @@ def run_one(check_id: str, texts: Mapping[str, str], record: str, system: str, j
             names: tuple[str, ...]) -> Outcome:
     """Compute one record (in a worker process); never raises for a bad record or a fault."""
     from fieldmode.calc.checks import load
-    from fieldmode.tui.cli import failure
 
     path = texts[record]
     try:
@@ -197,7 +197,7 @@ def summary_lines(spec: CheckSpec, outcomes: Sequence[Outcome], system: str) -> 
     from fieldmode.tui.present import LEVEL_MARKS, LEVEL_WORDS
 
     folder = _common_folder([outcome.path for outcome in outcomes])
-    shown = {o.path: printable(o.path[len(folder) + 1:] if folder else o.path) for o in outcomes}
+    shown = {o.path: printable(os.path.basename(o.path) if folder else o.path) for o in outcomes}
     done = [outcome for outcome in outcomes if not outcome.failure]
     flags: Column = ("flags", "", [LEVEL_MARKS[o.worst_flag] if o.worst_flag else "" for o in done])
     columns = [*_fitting(_columns(spec, done, system)), flags]
