@@ -5,6 +5,7 @@ from __future__ import annotations
 import io
 import json
 import os
+import shutil
 import signal
 import subprocess
 import sys
@@ -211,9 +212,13 @@ def test_ctrl_c_stops_every_worker_and_exits_130(tmp_path: Path) -> None:
     """Interrupted while records are running: status 130, no traceback, no worker left behind."""
     site = tmp_path / "many"
     site.mkdir()
-    write_decay(site / "r00.csv", 6.8, 0.025)
+    fs, frequency, zeta = 1000.0, 6.8, 0.025  # 100 s at 1 kHz: each record keeps a worker busy a while
+    time_s = np.arange(100_000) / fs
+    decay = np.exp(-zeta * 2 * np.pi * frequency * time_s) * np.sin(2 * np.pi * frequency * time_s)
+    np.savetxt(site / "r00.csv", np.column_stack([time_s, decay]), fmt=("%.3f", "%.6f"), delimiter=",",
+               header="time [s],acceleration [m/s^2]", comments="")
     for index in range(1, 40):
-        os.link(site / "r00.csv", site / f"r{index:02d}.csv")
+        shutil.copyfile(site / "r00.csv", site / f"r{index:02d}.csv")
     script = Path(sys.executable).parent / "fieldmode"
     process = subprocess.Popen([str(script), "decay", str(site), "--json"], stdout=subprocess.PIPE,
                                stderr=subprocess.PIPE, text=True, start_new_session=True)
