@@ -116,7 +116,13 @@ def run(argv: Sequence[str]) -> int:
         return run_app()
     from fieldmode.calc.checks import CHECK_IDS, load
 
-    args = build_parser(argv[0] if argv[0] in CHECK_IDS else None).parse_args(argv)
+    parser = build_parser(argv[0] if argv[0] in CHECK_IDS else None)
+    args, extra = parser.parse_known_args(argv)
+    if extra:  # record files after an option ('decay a.csv --band "5 10" b.csv') are records too
+        record = load(args.command).record_field if args.command in CHECK_IDS else None
+        if record is None or any(text.startswith("-") and text != "-" for text in extra):
+            parser.error(f"unrecognized arguments: {' '.join(extra)}")
+        getattr(args, record.name).extend(extra)
     if args.command == "checks":
         print(list_checks())
         return EXIT_OK

@@ -268,3 +268,16 @@ def test_a_fault_of_ours_in_one_record_gives_status_1_and_the_others_go_on(
     assert code == 1
     assert err.count("\n") == 1 and "internal fault" in err and "b_bay.csv" in err
     assert [Path(json.loads(line)["file"]).name for line in out.splitlines()] == ["a_bay.csv", "c_bay.txt"]
+
+
+def test_records_may_follow_an_option(capsys: pytest.CaptureFixture[str], folder: Path) -> None:
+    """argparse takes a positional list once: files after an option are still records, in the order typed."""
+    first, second = str(folder / "a_bay.csv"), str(folder / "c_bay.txt")
+    code, out, err = run(capsys, "decay", first, "--band", "2 12", second, "--json")
+    assert code == 0, err
+    assert out == run(capsys, "decay", first, second, "--band", "2 12", "--json")[1]
+
+
+def test_an_unknown_option_among_records_is_still_refused(capsys: pytest.CaptureFixture[str], folder: Path) -> None:
+    code, out, err = run(capsys, "decay", str(folder / "a_bay.csv"), "--bogus", "1", str(folder / "c_bay.txt"))
+    assert code == 2 and out == "" and err.count("\n") == 1 and "--bogus" in err
