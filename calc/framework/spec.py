@@ -107,9 +107,17 @@ class CheckSpec:
     caution: str = CAUTION
     series: tuple[Series, ...] = ()
     """Every curve the check can make; a result holds some or all of them."""
+    key_results: tuple[str, ...] = ()
+    """Names of the results a table of many records shows, most telling first (those that fit 80
+    columns); empty: the first results that fit."""
 
     def field(self, name: str) -> Field:
         return next(f for f in self.fields if f.name == name)
+
+    @property
+    def record_field(self) -> Field | None:
+        """The positional file field a record check reads (a folder or several files run it per record)."""
+        return next((f for f in self.fields if f.kind == "path" and f.positional), None)
 
     def demo_texts(self) -> dict[str, str]:
         return {f.name: f.default for f in self.fields}

@@ -622,3 +622,26 @@ def test_the_table_follows_the_units_and_carries_the_overlay(capsys: pytest.Capt
 def test_a_period_grid_gives_no_table(capsys: pytest.CaptureFixture[str]) -> None:
     code, out, _ = run(capsys, "spectrum", str(demo_file(GROUND_MOTION)), "--signal-unit", "g")
     assert code == 0 and "Curves by" not in out
+
+
+@pytest.mark.parametrize("argv", [
+    ["sdof", "--mass", "10 t", "--mass", "12 t", "--stiffness", "42 kN/mm"],
+    ["sdof", "--mass=10 t", "--stiffness", "42 kN/mm", "--mass", "12 t"],
+    ["sdof", "--mass", "10 t", "--stiffness", "42 kN/mm", "--ma", "12 t"],  # an abbreviation argparse accepts
+    ["sdof", "--mass", "10 t", "--stiffness", "42 kN/mm", "--mass", "10 t"],  # the same text twice: still refused
+    ["sdof", "--mass", "10 t", "--stiffness", "42 kN/mm", "--units", "si", "--units", "us"],
+], ids=["twice", "equals-then-space", "abbreviated", "same-text", "units"])
+def test_a_repeated_option_is_refused_naming_it(capsys: pytest.CaptureFixture[str], argv: list[str]) -> None:
+    """`--mass 10t --mass 12t` kept the last silently: a wrong answer that looks right. Refused, in one line."""
+    code, out, err = run(capsys, *argv)
+    repeated = "--units" if "--units" in argv else "--mass"
+    assert code == 2 and out == ""
+    assert err.count("\n") == 1 and "Traceback" not in err
+    assert f"{repeated} given more than once" in err
+
+
+def test_a_repeated_option_with_underscores_names_the_dashed_option(capsys: pytest.CaptureFixture[str]) -> None:
+    code, out, err = run(capsys, "sdof", "--mass", "9.6 t", "--static-deflection", "2 mm",
+                         "--static-def", "3 mm")
+    assert code == 2 and out == "" and err.count("\n") == 1
+    assert "--static-deflection given more than once" in err
