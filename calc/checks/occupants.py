@@ -300,6 +300,7 @@ SPEC = CheckSpec(
     fields=FIELDS,
     compute=compute,
     caution=CAUTION,
+    key_results=("response_verdict", "vdv_period", "mtvv", "weighted_rms"),
     series=(
         Series("band_frequency", "One-third-octave band centre", "frequency"),
         Series("band_rms", "Band RMS, unweighted", "acceleration", "band_frequency"),
