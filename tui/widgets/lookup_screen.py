@@ -6,6 +6,7 @@ from rich.text import Text
 from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical
+from textual.coordinate import Coordinate
 from textual.widgets import DataTable, Static
 
 from fieldmode.calc.typical_values import Row, Table
@@ -39,9 +40,9 @@ class LookupScreen(Dialog[Row | None]):
             yield Static(Text(f"Enter fills the field, Escape closes. Fills {self.table.fills}."),
                          classes="dialog-note")
             grid: DataTable[str] = DataTable(cursor_type="row")
-            grid.add_columns("fills", "what", "tabulated")
+            grid.add_columns(" ", "fills", "what", "tabulated")
             for row in self.table.rows:
-                grid.add_row(row.fill, row.description, row.note)
+                grid.add_row(" ", row.fill, row.description, row.note)
             if self.table.notes:
                 grid.styles.max_height = self.ROWS_WITH_NOTES
             yield grid
@@ -53,6 +54,10 @@ class LookupScreen(Dialog[Row | None]):
         self.query_one(DataTable).focus()
 
     def on_data_table_row_highlighted(self, event: DataTable.RowHighlighted) -> None:
+        """Mark the row at the cursor with '>' (the highlight alone is a colour, lost with NO_COLOR)."""
+        grid = event.data_table
+        for index in range(grid.row_count):
+            grid.update_cell_at(Coordinate(index, 0), ">" if index == event.cursor_row else " ")
         row = self.table.rows[event.cursor_row]
         self.query_one(".lookup-source", Static).update(Text(f"{row.description}: {row.note}; {row.source}"))
 

@@ -107,3 +107,28 @@ def test_machine_speed_filled_from_the_motor_table(make_app):
             assert "4-pole motor, 60 Hz supply" in app.messages[-1]
 
     asyncio.run(scenario())
+
+
+def _marked(line: str, row) -> bool:  # noqa: ANN001
+    """The line is the table row of ``row``, marked '>' as the cursor's row."""
+    return line.split()[:1] == [">"] and line.lstrip("> ").startswith(f"{row.fill} ") and row.description in line
+
+
+def test_the_row_at_the_cursor_is_marked_without_colour(make_app):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await focus_field(app, pilot, "damping")
+            await pilot.press("f7")
+            await pilot.pause()
+            first, second = STRUCTURE_DAMPING.rows[:2]
+            rows = [line.strip() for line in dialog_text(screen_text(app)).splitlines()]
+            assert any(_marked(line, first) for line in rows), rows
+            await pilot.press("down")
+            await pilot.pause()
+            rows = [line.strip() for line in dialog_text(screen_text(app)).splitlines()]
+            assert any(_marked(line, second) for line in rows), rows
+            assert not any(_marked(line, first) for line in rows), rows
+
+    asyncio.run(scenario())
