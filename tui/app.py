@@ -38,7 +38,8 @@ if TYPE_CHECKING:
 # Dialogs, typical-value tables and the calc record writer are imported when first used: the
 # first frame waits for nothing it does not show.
 
-MAIN_ONLY = {"scroll_results", "own", "alternative", "previous_check", "next_check", "go", "units", "view", "lookup", "send", "record"}
+MAIN_ONLY = {"scroll_results", "own", "alternative", "previous_check", "next_check", "go", "units", "view", "lookup",
+             "send", "record"}
 """Actions that act on the check on screen, so not while a dialog is open."""
 
 

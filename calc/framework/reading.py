@@ -242,7 +242,8 @@ class Inputs:
             if typed.note:
                 level = "caution" if typed.note.startswith("did you mean") else "info"
                 flags.append(Flag(level, f"{self.spec.field(name).label}: {typed.note}"))  # type: ignore[arg-type]
-        flags += [Flag("caution", f"{self.spec.field(name).label} ignored: {why}") for name, why in self.ignored.items()]
+        flags += [Flag("caution", f"{self.spec.field(name).label} ignored: {why}")
+                  for name, why in self.ignored.items()]
         return tuple(flags)
 
     def result(self, values: Mapping[str, Value], *, series: Mapping[str, np.ndarray] | None = None,
