@@ -95,10 +95,10 @@ class Workspace:
         if data.current in self.by_id:
             self.current = data.current
         self.project.update({k: v for k, v in data.project.items() if k in self.project})
-        for check_id, groups in data.alternatives.items():
+        for check_id, shown in data.alternatives.items():
             if check_id in self.by_id:
-                groups_of = _alternatives(self.by_id[check_id])
-                self.shown[check_id] = {group: name for group, name in groups.items() if name in groups_of.get(group, ())}
+                groups = _alternatives(self.by_id[check_id])
+                self.shown[check_id] = {group: name for group, name in shown.items() if name in groups.get(group, ())}
         for key, members in self.groups.items():
             self._settle(key, members, data.shared.get(key))
 
