@@ -179,7 +179,7 @@ class Workspace:
         if group is None:
             return []
         unused = spec.unused(self.texts[check_id])
-        return [member for member in _alternatives(spec)[group] if member not in unused]
+        return [member for member in _alternatives(spec).get(group, []) if member not in unused]
 
     def switch_alternative(self, check_id: str, name: str) -> str | None:
         """Show the next alternative of field ``name``'s group (texts are kept); return it, or None when
