@@ -79,6 +79,8 @@ def build_parser(only: str | None = None) -> argparse.ArgumentParser:
 
 
 def _add_check(commands: argparse._SubParsersAction, spec: CheckSpec) -> None:  # type: ignore[type-arg]
+    from fieldmode.calc.framework.spec import either
+
     sub = commands.add_parser(spec.id, help=_help(spec.summary),
                               description=_help(f"{spec.title}: {spec.summary}. {spec.caution}"))
     for spec_field in spec.fields:
@@ -89,6 +91,8 @@ def _add_check(commands: argparse._SubParsersAction, spec: CheckSpec) -> None:  
             text += f"; {spec_field.help}"
         if spec_field.group:
             text += f" (alternative: one of the '{spec_field.group}' options)"
+        for name, values in spec_field.used_when.items():
+            text += f" (used when {spec.field(name).option} is {either(v or 'not given' for v in values)})"
         if spec_field is spec.record_field:
             text += "; a folder or several files run each record (in a folder: files ending .csv .txt .tsv .dat)"
             sub.add_argument(spec_field.name, nargs="+" if spec_field.required else "*", help=_help(text))

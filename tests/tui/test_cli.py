@@ -645,3 +645,28 @@ def test_a_repeated_option_with_underscores_names_the_dashed_option(capsys: pyte
                          "--static-def", "3 mm")
     assert code == 2 and out == "" and err.count("\n") == 1
     assert "--static-deflection given more than once" in err
+
+
+def test_a_field_the_chosen_element_does_not_use_is_computed_without_it_and_noted(
+        capsys: pytest.CaptureFixture[str]) -> None:
+    columns = ["member", "--element", "columns", "--count", "4", "--length", "3.6 m", "--material", "steel",
+               "--second-moment", "8360 cm^4"]
+    code, plain, _ = run(capsys, *columns, "--json")
+    code_given, given, err = run(capsys, *columns, "--mass-per-length", "1.2 t/m", "--springs", "5 kN/mm", "--json")
+    assert code == code_given == 0 and err == ""
+    before, after = json.loads(plain), json.loads(given)
+    # Source: Chopra, Dynamics of Structures, sec. 1.3: four fixed-fixed columns k = 4 x 12 EI / h^3
+    assert after["results"]["stiffness"]["value"] == pytest.approx(4 * 12 * 210e9 * 8360e-8 / 3.6**3)
+    assert after["results"] == before["results"] and after["inputs"] == before["inputs"]
+    notes = [flag for flag in after["flags"] if flag not in before["flags"]]
+    assert notes == [
+        {"level": "caution", "text": "Spring stiffnesses ignored: used only when element is springs (here columns)"},
+        {"level": "caution", "text": "Mass per length ignored: used only when element is beam (here columns)"}]
+    code, text, _ = run(capsys, *columns, "--mass-per-length", "1.2 t/m")
+    assert code == 0 and "!  caution: Mass per length ignored: used only when element is beam" in text
+
+
+def test_help_says_which_choice_uses_a_field(capsys: pytest.CaptureFixture[str]) -> None:
+    code, out, _ = run(capsys, "member", "--help")
+    assert code == 0
+    assert "(used when --element is beam)" in " ".join(out.split())

@@ -21,7 +21,8 @@ def test_state_dir_follows_xdg_state_home(tmp_path):
 
 def test_save_then_load_round_trip(tmp_path):
     store = SessionStore(tmp_path / "state")
-    data = SessionData({"sdof": {"mass": "9.6 t", "damping": ""}}, "us", "sdof", {"sdof": ["damping"]})
+    data = SessionData({"sdof": {"mass": "9.6 t", "damping": ""}}, "us", "sdof", {"sdof": ["damping"]},
+                       alternatives={"sdof": {"stiffness": "static_deflection"}})
     assert store.save(data) == ""
     loaded = store.load()
     assert loaded.messages == [] and loaded.data == data
@@ -53,7 +54,9 @@ def test_atomic_write_leaves_the_old_file_when_it_fails(tmp_path, monkeypatch):
 
 @pytest.mark.parametrize("text", ["", "[]", "{", '{"format": "fieldmode-session", "checks": []}',
                                   '{"format": "fieldmode-session", "checks": {"a": {"b": 1}}}',
-                                  '{"format": "fieldmode-session", "checks": {}, "own": {"a": "b"}}'])
+                                  '{"format": "fieldmode-session", "checks": {}, "own": {"a": "b"}}',
+                                  '{"format": "fieldmode-session", "checks": {}, "alternatives": {"a": ["b"]}}',
+                                  '{"format": "fieldmode-session", "checks": {}, "alternatives": {"a": {"b": 1}}}'])
 def test_parse_refuses_what_is_not_a_session(text):
     with pytest.raises(ValueError):
         parse_session(text)
