@@ -112,11 +112,11 @@ async def check_results_and_flags(app: FieldmodeApp, pilot, view: CheckView) -> 
 
 
 async def check_fields(app: FieldmodeApp, pilot, view: CheckView) -> None:
-    """Tab through every field: the row in focus is wholly on screen and its label reads in full."""
+    """Tab through every field shown: the row in focus is wholly on screen and its label reads in full."""
     view.focus_first()
     await pilot.pause()
     box = view._fields_box
-    for row in view.rows():
+    for row in [row for row in view.rows() if row.display]:  # the fields the choices use
         await settle(app, pilot)
         await pilot.pause()
         assert app.focused is row.input, (view.spec.id, row.field.name, app.focused)
@@ -153,7 +153,7 @@ async def check_charts(app: FieldmodeApp, pilot, view: CheckView) -> None:
         assert chart.border_title in "".join(lines)
         assert not cuts(region_lines(app, Region(0, 0, *SIZE))), (view.spec.id, number, screen_text(app))
         for row in view.rows():
-            if not visible(row, view._fields_box):
+            if not row.display or not visible(row, view._fields_box):
                 continue  # out of view, or partly: Tab brings it in (check_fields)
             label = row.field.label_with_unit + (", list" if row.field.many else "")
             row_lines = region_lines(app, row.region)

@@ -87,6 +87,8 @@ class FieldRow(Widget):
         """Whether the value is the same as in other checks, and the key that changes it (shown in focus)."""
         self.notes_shown = True
         """False in chart view, where the pane is too narrow for the readings."""
+        self.alternative = ""
+        """The line under the label naming the alternatives not shown and the key that switches ('' none)."""
         self._focused = False
         self._shape: tuple[int, int] | None = None
         self._cut_shown = 0
@@ -121,10 +123,15 @@ class FieldRow(Widget):
             errors += textwrap.wrap(state + (f"; {key}" if key and self._focused else ""), max(8, width - INDENT))
         return labels, notes, errors
 
+    def _alternative_lines(self, width: int) -> list[str]:
+        return textwrap.wrap(printable(self.alternative), max(8, width - INDENT)) if self.alternative else []
+
     def _fit(self) -> None:
         """Put the box below the label and make the row as tall as what it shows (a layout pass only
         when either changes)."""
-        labels, notes, errors = self._lines(self.size.width or DEFAULT_WIDTH)
+        width = self.size.width or DEFAULT_WIDTH
+        labels, notes, errors = self._lines(width)
+        labels = labels + self._alternative_lines(width)
         shape = (len(labels), len(labels) + len(notes) + len(errors))
         if shape != self._shape:
             self._shape = shape
@@ -142,13 +149,17 @@ class FieldRow(Widget):
 
     def render(self) -> Text:
         """Label (marked '>' in focus), the reading beside the box, the error below."""
-        labels, notes, errors = self._lines(self.size.width or DEFAULT_WIDTH)
-        if (len(labels), len(labels) + len(notes) + len(errors)) != self._shape:
+        width = self.size.width or DEFAULT_WIDTH
+        labels, notes, errors = self._lines(width)
+        above = len(labels) + len(self._alternative_lines(width))
+        if (above, above + len(notes) + len(errors)) != self._shape:
             self.call_after_refresh(self._fit)  # laid out at another width (the chart view's narrower pane)
         text = Text(no_wrap=True, overflow="crop")
         for index, line in enumerate(labels):
             marker = "> " if self._focused and index == 0 else "  "
             text.append(marker + line + "\n", style="bold")
+        for line in self._alternative_lines(width):
+            text.append(" " * INDENT + line + "\n", style="dim")
         column = " " * (INDENT + self._box_width + 1)
         for line in notes:
             text.append(column + line + "\n", style="dim" if not self.error else "")
@@ -183,6 +194,13 @@ class FieldRow(Widget):
         self.set_class(bool(error), "-error")
         self._fit()
         self.refresh()
+
+    def show_alternative(self, text: str) -> None:
+        """Name the alternatives not shown under the label ('' for none)."""
+        if text != self.alternative:
+            self.alternative = text
+            self._fit()
+            self.refresh()
 
     def show_notes(self, shown: bool) -> None:
         """Show the readings beside the boxes (results view) or not (chart view, a narrower pane)."""
