@@ -1,0 +1,77 @@
+"""Charts of the `ppv` check: each axis's PPV at its frequency on the guideline's line (log-log), and the
+velocity time history with each axis's peak marked."""
+
+from __future__ import annotations
+
+from typing import Any
+
+import numpy as np
+
+from fieldmode.calc.framework.result import Result
+from fieldmode.calc.physics.vibration_limits import HUMAN_LEVELS
+from fieldmode.tui.charts.common import LINE_MARKER, axis_scale, downsample
+
+AXIS_MARKERS = ("x", "o", "+")
+"""Marker of axis 1, 2 and 3 (letters and signs: they read without colour)."""
+AXES = ("axis_1", "axis_2", "axis_3")
+
+
+def draw_guideline(plt: Any, result: Result, system: str) -> None:
+    """PPV of each axis against the frequency compared, on log-log axes, with the guideline's line (or the
+    BS 5228-2 human-response levels)."""
+    series = result.series
+    ppv, frequency = series["axis_ppv"], series["axis_frequency"]
+    limit = series["guideline_limit"] if "guideline_limit" in series else None
+    scale, unit = axis_scale("velocity", system, ppv if limit is None else limit)
+    if limit is not None:
+        x, y = downsample(series["guideline_frequency"], limit * scale)
+        plt.plot(x, y, marker=LINE_MARKER)
+        line = "guideline line"
+        low, high = float(series["guideline_frequency"][0]), float(series["guideline_frequency"][-1])
+    else:
+        low, high = 1.0, 150.0
+        for level in HUMAN_LEVELS:
+            plt.plot([low, high], [level.level * scale] * 2, marker=LINE_MARKER)
+        line = "BS 5228-2 levels"
+    shown = [k for k in range(len(ppv)) if np.isfinite(frequency[k]) and ppv[k] > 0]
+    for k in shown:
+        plt.scatter([float(frequency[k])], [float(ppv[k] * scale)], marker=AXIS_MARKERS[k])
+    plt.xscale("log")
+    plt.yscale("log")
+    f_values = [low, high, *(float(frequency[k]) for k in shown)]
+    _log_ticks(plt.xticks, min(f_values), max(f_values))
+    levels = list(limit * scale) if limit is not None else [level.level * scale for level in HUMAN_LEVELS]
+    v_values = [*levels, *(float(ppv[k] * scale) for k in shown)]
+    _log_ticks(plt.yticks, min(v_values), max(v_values))
+    plt.title(f"PPV ({unit}) by axis {' '.join(AXIS_MARKERS[:len(ppv)])}; {line}")
+    plt.xlabel("frequency at the peak (Hz)")
+
+
+def _log_ticks(set_ticks: Any, low: float, high: float) -> None:
+    """Ticks at 1, 2 and 5 times the powers of ten between ``low`` and ``high`` (at least two)."""
+    if not 0 < low < high:
+        return
+    decades = range(int(np.floor(np.log10(low))), int(np.ceil(np.log10(high))) + 1)
+    ticks = [m * 10.0**d for d in decades for m in (1, 2, 5) if low * 0.999 <= m * 10.0**d <= high * 1.001]
+    if len(ticks) >= 2:
+        set_ticks(ticks, [f"{t:g}" for t in ticks])
+
+
+def draw_history(plt: Any, result: Result, system: str) -> None:
+    """Velocity of each axis against time, each axis's peak marked with its marker."""
+    series = result.series
+    time = series["time"]
+    axes = [series[name] for name in AXES if name in series]
+    scale, unit = axis_scale("velocity", system, series["peak_ppv"])
+    for velocity in axes:
+        x, y = downsample(time, velocity * scale)
+        plt.plot(x, y, marker=LINE_MARKER)
+    for k, (at, velocity) in enumerate(zip(series["peak_time"], axes, strict=False)):
+        signed = float(np.interp(at, time, velocity))
+        plt.scatter([float(at)], [signed * scale], marker=AXIS_MARKERS[k])
+    plt.title(f"velocity ({unit}), peaks {' '.join(AXIS_MARKERS[:len(axes)])}")
+    plt.xlabel("time (s)")
+
+
+PANELS = (draw_guideline, draw_history)
+"""The chart panels of the check, in the order they are shown."""
