@@ -45,6 +45,8 @@ LARGEST_EVENTS = 3
 """Events listed as result values (every event is in the series)."""
 THIN_BUCKETS = 300
 """The time history is thinned to the lowest and highest sample of each axis in this many stretches."""
+SPECTRUM_LOWER = 0.8
+"""A spectral frequency below this share of the zero-crossing one is said, with the ratio it would give."""
 MAX_HIGH_PASS = 20.0
 """Highest high-pass corner accepted (Hz): above it the filter would take construction vibration away."""
 LABEL_NAME = 10
@@ -77,8 +79,8 @@ REFERENCES = (
     Reference("PPV: the largest |v| of each axis; peak vector sum: the largest instantaneous "
               "sqrt(vx^2 + vy^2 + vz^2)", "DIN 4150-3:1999; BS 7385-2:1993 (definitions, from memory)"),
     Reference("Frequency at the peak: 1 / (2 x the half cycle between the zero crossings about it), and the "
-              "highest line of the spectrum of a 1 s Hann-windowed stretch about it; the lower of the two is "
-              "compared with the guideline (its values rise with frequency)", "Common practice (no source)"),
+              "highest line of the spectrum of a 1 s Hann-windowed stretch about it (a cross-check); the "
+              "zero-crossing frequency is compared with the guideline", "Common practice (no source)"),
     Reference("Events: stretches where an axis exceeds the threshold, split by the quiet gap",
               "Common practice (no source)"),
 )
@@ -100,8 +102,9 @@ def compute(inputs: Inputs) -> Result:
     choice = inputs.text("guideline")
     key = GUIDELINES[choice]
     series = {**_history(record.time, axes), **_peak_series(peaks), **_event_series(events)}
-    frequencies = np.array([_governing_frequency(p) for p in peaks])
-    series["axis_frequency"], series["axis_ppv"] = frequencies, np.array([p.ppv for p in peaks])
+    found = [p for p in peaks if np.isfinite(_governing_frequency(p))]
+    series["axis_frequency"] = np.array([_governing_frequency(p) for p in found])
+    series["axis_ppv"] = np.array([p.ppv for p in found])
     if key is None:
         values = _people(peaks, names, flags)
     else:
@@ -116,6 +119,7 @@ def compute(inputs: Inputs) -> Result:
     values.update(_largest_events(events))
     values["sample_rate"] = quantity("Sample rate", "frequency", rate)
     values["duration"] = quantity("Record length", "time", float(record.time[-1] - record.time[0]))
+    series = {name: curve for name, curve in series.items() if np.isfinite(curve).all()}  # a curve with a gap
     references = REFERENCES + _guideline_references(key)
     return inputs.result(values, series=series, flags=tuple(flags), references=references,
                          files=(InputFile(inputs.text("file"), record.source.size, record.source.sha256),))
@@ -157,6 +161,9 @@ def _velocities(inputs: Inputs) -> tuple[Record, list[np.ndarray], list[str], li
     if kind == "acceleration":
         axes, how = _integrated(inputs, choice, axes, record.sample_rate)
         flags.append(Flag("info", f"acceleration integrated: {how}"))
+        corner = inputs.value("high_pass")
+        flags.append(Flag("caution", f"the first and last {1 / corner:.3g} s of the velocity carry the start and "
+                                     "end of the filter: a peak there may be off"))
     elif inputs.has("high_pass"):
         raise inputs.error("high_pass", "the record is already a velocity; leave the high-pass empty")
     names = [_UNIT_IN_NAME.sub("", n) or n for n in record.channel_names]
@@ -216,9 +223,12 @@ def _events(inputs: Inputs, axes: list[np.ndarray], rate: float, t0: float, t_en
 
 
 def _governing_frequency(peak: AxisPeak) -> float:
-    """The frequency (Hz) compared with the guideline: the lower of the two found (NaN if neither)."""
-    found = [f for f in (peak.frequency_crossings, peak.frequency_spectrum) if f is not None]
-    return min(found) if found else float("nan")
+    """The frequency (Hz) compared with the guideline: from the zero crossings about the peak, else from the
+    spectrum about it (NaN if neither was found)."""
+    for found in (peak.frequency_crossings, peak.frequency_spectrum):
+        if found is not None:
+            return found
+    return float("nan")
 
 
 def _short(name: str) -> str:
@@ -264,6 +274,12 @@ def _assessment(key: str, choice: str, peaks: list[AxisPeak], names: list[str],
                                          f"{line.lowest:g} Hz, where {line.title} gives no value"))
             continue
         ratios.append((peak.ppv / allowed, index, allowed, frequency))
+        other = peak.frequency_spectrum
+        if len(line.values) > 1 and other is not None and other < SPECTRUM_LOWER * frequency:
+            at_other = _limit_at(key, other)
+            judged = "no value there" if at_other is None else f"PPV / value there {peak.ppv / at_other:.3g}"
+            flags.append(Flag("caution", f"{names[index]}: the spectrum about the peak puts it at {other:.3g} Hz, "
+                                         f"below the {frequency:.3g} Hz of its half cycle ({judged})"))
     if choice.startswith(HORIZONTAL_ONLY):
         flags.append(Flag("info", f"{line.title}: values for horizontal vibration; every axis given was "
                                   "compared (name only the horizontal columns in Axis columns)"))
