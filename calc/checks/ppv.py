@@ -157,7 +157,7 @@ def _velocities(inputs: Inputs) -> tuple[Record, list[np.ndarray], list[str], li
     if kind == "length":
         raise inputs.error("signal_unit", f"the guideline {choice} is a velocity and the record is a "
                                           "displacement: give a velocity or acceleration record")
-    axes = [np.ascontiguousarray(record.signals[:, i]) for i in range(count)]
+    axes = [record.signals[:, i] for i in range(count)]  # views: a long record is not copied again
     if kind == "acceleration":
         axes, how = _integrated(inputs, choice, axes, record.sample_rate)
         flags.append(Flag("info", f"acceleration integrated: {how}"))
