@@ -21,7 +21,7 @@ def draw_guideline(plt: Any, result: Result, system: str) -> None:
     BS 5228-2 human-response levels)."""
     series = result.series
     ppv, frequency = series["axis_ppv"], series["axis_frequency"]
-    limit = series["guideline_limit"] if "guideline_limit" in series else None
+    limit = series.get("guideline_limit")
     scale, unit = axis_scale("velocity", system, ppv if limit is None else limit)
     if limit is not None:
         x, y = downsample(series["guideline_frequency"], limit * scale)

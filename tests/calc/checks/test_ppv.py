@@ -76,7 +76,8 @@ def test_vector_sum_of_three_axes(tmp_path: Path) -> None:
 
 def test_named_axes_are_the_only_ones_read(tmp_path: Path) -> None:
     # Common practice (no source): the columns named are the axes, in the order named
-    columns = {f"{name} [mm/s]": burst(3.0, amplitude, 25.0, 1.0, 5) for name, amplitude in zip("xyz", (1, 2, 4))}
+    columns = {f"{name} [mm/s]": burst(3.0, amplitude, 25.0, 1.0, 5)
+               for name, amplitude in zip("xyz", (1, 2, 4), strict=True)}
     path = write_record(tmp_path, columns)
     result = evaluate(path, axes="z, 3")  # column 3 of the file (time, x, y, z) is y
     assert si(result, "ppv_1") == pytest.approx(4e-3, rel=1e-6)
