@@ -212,7 +212,7 @@ def test_a_velocity_record_with_a_high_pass_is_refused(tmp_path: Path) -> None:
     path = write_record(tmp_path, {"v [mm/s]": burst(3.0, 0.2, 20.0, 1.0, 10)})
     with pytest.raises(InputError) as caught:
         evaluate(path, high_pass="1 Hz")
-    assert caught.value.field == "High-pass (acceleration)"
+    assert caught.value.field == "High-pass corner"
 
 
 @pytest.mark.parametrize("axes", ["x, x", "x, y, z, x", "x,,y"])
