@@ -24,7 +24,7 @@ if TYPE_CHECKING:
     from fieldmode.calc.records.ppv import AxisPeak, Event
     from fieldmode.calc.records.read import Record
 
-CAUTION = ("Guideline values are screening references; the building's condition, local rules and a licensed "
+CAUTION = ("Guideline values are screening references: the building's condition, local rules and a licensed "
            "engineer govern, and vibration that people complain of is judged by the local authority's procedure.")
 
 PEOPLE = "bs5228-people"
