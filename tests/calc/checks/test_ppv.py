@@ -203,12 +203,14 @@ def test_no_unit_anywhere_is_refused_on_the_signal_unit(tmp_path: Path) -> None:
 
 
 def test_a_displacement_record_is_refused(tmp_path: Path) -> None:
+    # Common practice (no source): the guidelines are in velocity; a displacement is not differentiated here
     path = write_record(tmp_path, {"d [mm]": burst(3.0, 0.2, 20.0, 1.0, 10)})
     with pytest.raises(InputError, match="displacement"):
         evaluate(path)
 
 
 def test_a_velocity_record_with_a_high_pass_is_refused(tmp_path: Path) -> None:
+    # Common practice (no source): the high-pass belongs to integration; a velocity record has nothing to integrate
     path = write_record(tmp_path, {"v [mm/s]": burst(3.0, 0.2, 20.0, 1.0, 10)})
     with pytest.raises(InputError) as caught:
         evaluate(path, high_pass="1 Hz")
@@ -217,6 +219,7 @@ def test_a_velocity_record_with_a_high_pass_is_refused(tmp_path: Path) -> None:
 
 @pytest.mark.parametrize("axes", ["x, x", "x, y, z, x", "x,,y"])
 def test_bad_axis_lists_are_refused(tmp_path: Path, axes: str) -> None:
+    # Common practice (no source): one to three distinct columns make a triaxial record
     path = write_record(tmp_path, {"x [mm/s]": np.zeros(100), "y [mm/s]": np.zeros(100), "z [mm/s]": np.zeros(100)})
     with pytest.raises(InputError) as caught:
         evaluate(path, axes=axes)
@@ -230,6 +233,7 @@ def run(capsys: pytest.CaptureFixture[str], *argv: str) -> tuple[int, str, str]:
 
 
 def test_command_line_refuses_bad_input_in_one_line(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    # Common practice (no source): bad input exits 2 with one line on stderr naming what to fix
     velocity = write_record(tmp_path, {"x [mm/s]": burst(3.0, 1.0, 20.0, 1.0, 10)}, name="vel.csv")
     bare = write_record(tmp_path, {"x": burst(3.0, 1.0, 20.0, 1.0, 10)}, name="bare.csv")
     acceleration = write_record(tmp_path, {"x [g]": burst(6.0, 0.01, 20.0, 1.0, 10, fs=FS)}, name="acc.csv")
@@ -250,6 +254,7 @@ def test_command_line_refuses_bad_input_in_one_line(tmp_path: Path, capsys: pyte
 
 
 def test_json_has_every_event_and_the_caution(capsys: pytest.CaptureFixture[str]) -> None:
+    # Common practice (no source): every event leaves in the JSON, with the caution the issue asks for
     code, out, _ = run(capsys, "ppv", "demo:sheet_piling_demo.csv", "--guideline", "din-foundation-2",
                        "--threshold", "0.5 mm/s", "--quiet-gap", "3 s", "--json")
     data = json.loads(out)
