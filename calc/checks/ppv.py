@@ -366,13 +366,25 @@ def _peak_series(peaks: list[AxisPeak]) -> dict[str, np.ndarray]:
 
 
 def _event_series(events: list[Event]) -> dict[str, np.ndarray]:
+    """Each event's start, end, largest PPV with its frequency, vector sum, and every axis's peak."""
     largest = [int(np.argmax([p.ppv for p in e.axes])) for e in events]
-    return {"event_start": np.array([e.start for e in events]),
+    per_axis: dict[str, np.ndarray] = {}
+    for k in range(len(events[0].axes) if events else 0):
+        peaks = [e.axes[k] for e in events]
+        per_axis[f"event_time_{k + 1}"] = np.array([p.time for p in peaks])
+        per_axis[f"event_ppv_{k + 1}"] = np.array([p.ppv for p in peaks])
+        per_axis[f"event_crossings_{k + 1}"] = np.array([_or_nan(p.frequency_crossings) for p in peaks])
+        per_axis[f"event_spectrum_{k + 1}"] = np.array([_or_nan(p.frequency_spectrum) for p in peaks])
+    return {**per_axis, "event_start": np.array([e.start for e in events]),
             "event_end": np.array([e.end for e in events]),
             "event_ppv": np.array([e.axes[k].ppv for e, k in zip(events, largest, strict=True)]),
             "event_frequency": np.array([_governing_frequency(e.axes[k]) for e, k in zip(events, largest,
                                                                                           strict=True)]),
             "event_vector_sum": np.array([e.vector_sum for e in events])}
+
+
+def _or_nan(value: float | None) -> float:
+    return float("nan") if value is None else value
 
 
 def _guideline_series(key: str) -> dict[str, np.ndarray]:
@@ -412,5 +424,10 @@ SPEC = CheckSpec(
         Series("event_frequency", "Event frequency at the peak", "frequency", "event_start"),
         Series("event_vector_sum", "Event vector sum PPV", "velocity", "event_start"),
         Series("event_ratio", "Event PPV / guideline value", "number", "event_start"),
+        *(curve for n in (1, 2, 3) for curve in (
+            Series(f"event_time_{n}", f"Event peak time, axis {n}", "time"),
+            Series(f"event_ppv_{n}", f"Event PPV, axis {n}", "velocity", f"event_time_{n}"),
+            Series(f"event_crossings_{n}", f"Event f crossings, axis {n}", "frequency", f"event_time_{n}"),
+            Series(f"event_spectrum_{n}", f"Event f spectrum, axis {n}", "frequency", f"event_time_{n}"))),
     ),
 )

@@ -164,6 +164,10 @@ def test_events_split_by_the_quiet_gap(tmp_path: Path) -> None:
     np.testing.assert_allclose(result.series["event_start"], [1.0, 7.0], atol=0.01)
     np.testing.assert_allclose(result.series["event_frequency"], [25.0, 50.0], rtol=5e-3)
     assert si(result, "event_2") == pytest.approx(5e-3, rel=1e-6)
+    # each event has every axis's results: its peak a quarter period after the burst starts
+    np.testing.assert_allclose(result.series["event_ppv_1"], [2e-3, 5e-3], rtol=1e-6)
+    np.testing.assert_allclose(result.series["event_time_1"], [1.0 + 0.25 / 25.0, 7.0 + 0.25 / 50.0], atol=0.1 / FS)
+    np.testing.assert_allclose(result.series["event_crossings_1"], [25.0, 50.0], rtol=5e-3)
     assert result.values["event_2"].label == "Event 2 at 7 s PPV"
     assert si(evaluate(path, threshold="0.5 mm/s", quiet_gap="5 s"), "events") == 1
     assert si(evaluate(path), "events") == 1
