@@ -279,3 +279,20 @@ def test_demo_record_gives_back_its_invented_drives() -> None:
     starts = result.series["event_start"]
     np.testing.assert_allclose(starts[:2], [d.start for d in truth.drives], atol=1.0)
     assert starts[2] == pytest.approx(truth.knock_time, abs=0.1)
+
+
+def test_a_lower_spectral_frequency_is_said_with_the_ratio_it_would_give(tmp_path: Path) -> None:
+    # Source: closed form: a 5 Hz sine with a downward 40 Hz half cycle of 3x its amplitude centred on its crest at
+    # t = 2.05 s: the sum dips below zero for (pi - 2 asin(1/3)) / (2 pi 40 Hz) = 9.8 ms (a half cycle of about
+    # 51 Hz) and peaks there, while a 1 s window about the peak is mostly the 5 Hz sine
+    t = np.arange(int(4 * FS)) / FS
+    start = 2.05 - 1 / 160.0
+    pulse = np.where((t >= start) & (t < start + 1 / 80.0), -3.0 * np.sin(2 * np.pi * 40.0 * (t - start)), 0.0)
+    path = write_record(tmp_path, {"v [mm/s]": np.sin(2 * np.pi * 5.0 * t) + pulse})
+    result = evaluate(path, guideline="din-foundation-2")
+    assert si(result, "frequency_crossings_1") == pytest.approx(51.0, rel=0.05)
+    assert si(result, "frequency_spectrum_1") == pytest.approx(5.0, rel=0.05)
+    # Source: DIN 4150-3:1999 Table 1 line 2: 5 mm/s at 5 Hz (confirmed in two reproductions)
+    ppv = si(result, "ppv_1")
+    said = [flag.text for flag in result.flags if flag.level == "caution" and "spectrum about the peak" in flag.text]
+    assert said and f"{ppv / 5e-3:.3g}" in said[0]
