@@ -75,7 +75,7 @@ def test_readme_lists_every_key_of_the_app():
 
     readme = README.read_text()
     assert "docs/screenshot.svg" in readme
-    names = {"pagedown": "PageDown", "pageup": "PageUp", "ctrl+q": "Ctrl+Q", "ctrl+o": "Ctrl+O"}
+    names = {"pagedown": "PageDown", "pageup": "PageUp", "ctrl+q": "Ctrl+Q", "ctrl+o": "Ctrl+O", "ctrl+t": "Ctrl+T"}
     for binding in FieldmodeApp.BINDINGS:
         for key in binding.key.split(","):
             assert names.get(key, key.upper()) in readme, key

@@ -26,7 +26,7 @@ from textual.widgets import ContentSwitcher
 from fieldmode.calc.checks import SPECS
 from fieldmode.tui.printable import printable
 from fieldmode.tui.session import SessionStore, state_dir
-from fieldmode.tui.widgets.check_view import CheckView
+from fieldmode.tui.widgets.check_view import ALTERNATIVE_KEY, CheckView
 from fieldmode.tui.widgets.status import CautionLine, KeyBar, TopBar
 from fieldmode.tui.workspace import Workspace
 
@@ -38,7 +38,8 @@ if TYPE_CHECKING:
 # Dialogs, typical-value tables and the calc record writer are imported when first used: the
 # first frame waits for nothing it does not show.
 
-MAIN_ONLY = {"scroll_results", "own", "previous_check", "next_check", "go", "units", "view", "lookup", "send", "record"}
+MAIN_ONLY = {"scroll_results", "own", "alternative", "previous_check", "next_check", "go", "units", "view", "lookup",
+             "send", "record"}
 """Actions that act on the check on screen, so not while a dialog is open."""
 
 
@@ -64,6 +65,9 @@ class FieldmodeApp(App[int]):
                 tooltip="write a calc record (Markdown and JSON) of this check or of the whole session"),
         Binding("ctrl+o", "own", "own value", show=False, id="field.own",
                 tooltip="a shared field (mass, damping) in focus: keep its own value in this check, or share it again"),
+        Binding(ALTERNATIVE_KEY, "alternative", "alternative", show=False, id="field.alternative",
+                tooltip="a field with an alternative in focus (stiffness or static deflection): show the other one "
+                        "instead; what is typed in either is kept, the one shown is used"),
         Binding("pagedown", "scroll_results(1)", "results down", show=False, id="results.down",
                 tooltip="scroll the results (the fields, in chart view) down a page"),
         Binding("pageup", "scroll_results(-1)", "results up", show=False, id="results.up",
@@ -346,7 +350,7 @@ class FieldmodeApp(App[int]):
             self.say("Move to a field first (Tab), then F7.")
             return
         spec_field = row.field
-        table = table_for(spec_field.name, spec_field.kind)
+        table = table_for(spec_field, view.spec.id)
         if table is None and spec_field.choices:
             table = choices_table(spec_field.label, spec_field.choices)
         if table is None:
@@ -377,13 +381,21 @@ class FieldmodeApp(App[int]):
         view.sync()
         self.save_soon()
 
+    def action_alternative(self) -> None:
+        shown = self.current_view.switch_alternative()
+        if shown is None:
+            self.say("Ctrl+T works in a field that has an alternative (such as stiffness or static deflection).")
+            return
+        self.say(f"{shown} is used now; the other alternative keeps its text.")
+        self.save_soon()
+
     def action_send(self) -> None:
         from fieldmode.tui.evaluation import evaluate_guarded
         from fieldmode.tui.widgets.send_screen import SendScreen
 
         view = self.current_view
         spec = view.spec
-        texts = self.workspace.texts[spec.id]
+        texts = self.workspace.used_texts(spec.id)
         outcome = view.outcome
         if (outcome is None or outcome.result is None or outcome.texts != texts
                 or outcome.system != self.workspace.system):
@@ -438,8 +450,8 @@ class FieldmodeApp(App[int]):
 
         specs = self.specs if scope == "session" else (self.workspace.by_id[self.workspace.current],)
         system = self.workspace.system
-        entries = [Entry(spec, dict(self.workspace.texts[spec.id]),
-                         evaluate_guarded(spec, self.workspace.texts[spec.id], system)) for spec in specs]
+        used = {spec.id: self.workspace.used_texts(spec.id) for spec in specs}
+        entries = [Entry(spec, used[spec.id], evaluate_guarded(spec, used[spec.id], system)) for spec in specs]
         try:
             write_record(path, entries, system, self.workspace.project)
         except OSError as error:

@@ -35,6 +35,27 @@ class _Parser(argparse.ArgumentParser):
         self.exit(EXIT_INPUT, f"{self.prog}: {message} (see {self.prog} --help)\n")
 
 
+_GIVEN = "_options_given"
+"""Attribute of the parsed namespace holding the destinations of the options given so far."""
+
+
+class _Once(argparse.Action):
+    """Store an option's value, refusing the option a second time, however it is spelled.
+
+    argparse keeps the last of a repeated option, so `--mass 10t --mass 12t` would compute with
+    12 t and say nothing. Abbreviations (`--ma`) and `--mass=10t` reach the same action, so each
+    is caught; the message names the option as `--help` lists it.
+    """
+
+    def __call__(self, parser: argparse.ArgumentParser, namespace: argparse.Namespace,
+                 values: object, option_string: str | None = None) -> None:
+        given = namespace.__dict__.setdefault(_GIVEN, set())
+        if self.dest in given:
+            parser.error(f"{self.option_strings[0]} given more than once: give it once")
+        given.add(self.dest)
+        setattr(namespace, self.dest, values)
+
+
 def build_parser(only: str | None = None) -> argparse.ArgumentParser:
     """The command line: `checks`, `convert`, and one subcommand per check spec.
 
@@ -58,6 +79,8 @@ def build_parser(only: str | None = None) -> argparse.ArgumentParser:
 
 
 def _add_check(commands: argparse._SubParsersAction, spec: CheckSpec) -> None:  # type: ignore[type-arg]
+    from fieldmode.calc.framework.spec import either
+
     sub = commands.add_parser(spec.id, help=_help(spec.summary),
                               description=_help(f"{spec.title}: {spec.summary}. {spec.caution}"))
     for spec_field in spec.fields:
@@ -68,15 +91,20 @@ def _add_check(commands: argparse._SubParsersAction, spec: CheckSpec) -> None:  
             text += f"; {spec_field.help}"
         if spec_field.group:
             text += f" (alternative: one of the '{spec_field.group}' options)"
-        if spec_field.positional:
+        for name, values in spec_field.used_when.items():
+            text += f" (used when {spec.field(name).option} is {either(v or 'not given' for v in values)})"
+        if spec_field is spec.record_field:
+            text += "; a folder or several files run each record (in a folder: files ending .csv .txt .tsv .dat)"
+            sub.add_argument(spec_field.name, nargs="+" if spec_field.required else "*", help=_help(text))
+        elif spec_field.positional:
             sub.add_argument(spec_field.name, help=_help(text))
         else:
-            sub.add_argument(spec_field.option, dest=spec_field.name, metavar="VALUE", help=_help(text))
+            sub.add_argument(spec_field.option, dest=spec_field.name, metavar="VALUE", action=_Once, help=_help(text))
     sub.add_argument("--json", action="store_true", help="print one JSON object (SI values, curves included)")
-    sub.add_argument("--csv", metavar="FILE", help="write the curves as CSV columns (SI) to FILE, or - for "
-                                                   "standard output instead of the text")
+    sub.add_argument("--csv", metavar="FILE", action=_Once,
+                     help="write the curves as CSV columns (SI) to FILE, or - for standard output instead of the text")
     sub.add_argument("--overwrite", action="store_true", help="with --csv: replace an existing FILE")
-    sub.add_argument("--units", choices=("si", "us"), default="si", help="units of the text output")
+    sub.add_argument("--units", choices=("si", "us"), default="si", action=_Once, help="units of the text output")
 
 
 def _help(text: str) -> str:
@@ -92,18 +120,34 @@ def run(argv: Sequence[str]) -> int:
         return run_app()
     from fieldmode.calc.checks import CHECK_IDS, load
 
-    args = build_parser(argv[0] if argv[0] in CHECK_IDS else None).parse_args(argv)
+    parser = build_parser(argv[0] if argv[0] in CHECK_IDS else None)
+    args, extra = parser.parse_known_args(argv)
+    if extra:  # record files after an option ('decay a.csv --band "5 10" b.csv') are records too
+        record = load(args.command).record_field if args.command in CHECK_IDS else None
+        if record is None or any(text.startswith("-") and text != "-" for text in extra):
+            parser.error(f"unrecognized arguments: {' '.join(extra)}")
+        getattr(args, record.name).extend(extra)
     if args.command == "checks":
         print(list_checks())
         return EXIT_OK
     if args.command == "convert":
         return _convert(args.text, args.unit)
     spec = load(args.command)
+    texts = {f.name: getattr(args, f.name) for f in spec.fields if getattr(args, f.name) is not None}
+    record = spec.record_field
+    if record is not None and texts.get(record.name):
+        from fieldmode.tui.many import is_many, run_many
+
+        if is_many(texts[record.name]):
+            others = {name: text for name, text in texts.items() if name != record.name}
+            return run_many(spec, texts[record.name], others, json_lines=args.json, csv=args.csv, system=args.units)
+        texts[record.name] = texts[record.name][0]
+    elif record is not None:
+        texts.pop(record.name, None)  # an optional record field given no file
     if args.csv is not None:
         from fieldmode.tui.curves import STDOUT, check_target, write_curves
 
         check_target(args.csv, overwrite=args.overwrite, json=args.json)
-    texts = {f.name: getattr(args, f.name) for f in spec.fields if getattr(args, f.name) is not None}
     result = spec.evaluate(texts, args.units)
     if args.csv is not None:
         write_curves(spec, result, args.csv)
@@ -196,18 +240,23 @@ def main(argv: Sequence[str] | None = None) -> int:
 
 def _failed(error: Exception) -> int:
     """Report a failure on one line of stderr; return its exit status."""
+    line, status = failure(error)
+    print(line, file=sys.stderr)
+    return status
+
+
+def failure(error: Exception) -> tuple[str, int]:
+    """The one line that reports ``error`` and the exit status it gives (2 bad input or file, 1 a bug)."""
     from fieldmode.calc.framework.units import InputError
     from fieldmode.tui.curves import CurvesError
+    from fieldmode.tui.many import ManyError
 
-    if isinstance(error, InputError | CurvesError):
-        print(f"fieldmode: {printable(str(error))}", file=sys.stderr)
-        return EXIT_INPUT
+    if isinstance(error, InputError | CurvesError | ManyError):
+        return f"fieldmode: {printable(str(error))}", EXIT_INPUT
     if isinstance(error, OSError):
-        print(printable(f"fieldmode: {error.strerror or error}: {error.filename or ''}".rstrip(": ")), file=sys.stderr)
-        return EXIT_INPUT
-    print(printable(f"fieldmode {__version__}: internal fault ({type(error).__name__}: {error}); "
-                    "please report it with the command you ran"), file=sys.stderr)
-    return EXIT_FAULT
+        return printable(f"fieldmode: {error.strerror or error}: {error.filename or ''}".rstrip(": ")), EXIT_INPUT
+    return (printable(f"fieldmode {__version__}: internal fault ({type(error).__name__}: {error}); "
+                      "please report it with the command you ran"), EXIT_FAULT)
 
 
 if __name__ == "__main__":

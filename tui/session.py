@@ -56,12 +56,14 @@ class SessionData:
     """Meaning key -> the one text of a shared value (empty in a version 1 file)."""
     project: dict[str, str] = field(default_factory=dict)
     """Project, job, engineer, note."""
+    alternatives: dict[str, dict[str, str]] = field(default_factory=dict)
+    """Check id -> group of alternatives -> the field shown and used (stiffness or static deflection)."""
 
     def to_json(self) -> str:
         return json.dumps({"format": FORMAT, "version": VERSION,
                            "saved": time.strftime("%Y-%m-%dT%H:%M:%S%z"), "system": self.system,
                            "current": self.current, "checks": self.texts, "shared": self.shared,
-                           "own": self.own, "project": self.project},
+                           "own": self.own, "project": self.project, "alternatives": self.alternatives},
                           indent=1, ensure_ascii=False)
 
 
@@ -89,9 +91,15 @@ def parse_session(text: str) -> SessionData:
     for name, table in (("shared values", shared), ("project fields", project)):
         if not isinstance(table, dict) or not all(_short_text(k) and _short_text(v) for k, v in table.items()):
             raise SessionFormatError(f"the {name} in the session file are not texts")
+    alternatives = data.get("alternatives", {})
+    if not isinstance(alternatives, dict) or not all(
+            isinstance(groups, dict) and all(_short_text(k) and _short_text(v) for k, v in groups.items())
+            for groups in alternatives.values()):
+        raise SessionFormatError("the alternatives in the session file are not names")
     return SessionData({str(k): dict(v) for k, v in checks.items()}, system, current,
                        {str(k): list(v) for k, v in own.items()}, dict(shared),
-                       {k: v for k, v in project.items() if k in PROJECT_FIELDS})
+                       {k: v for k, v in project.items() if k in PROJECT_FIELDS},
+                       {str(k): dict(v) for k, v in alternatives.items()})
 
 
 def _short_text(value: object) -> bool:
@@ -153,7 +161,8 @@ class SessionStore:
             with tempfile.TemporaryFile(dir=self.folder):
                 pass
         except OSError as error:
-            return [f"Your inputs will not be saved: {describe_os_error(error, self.folder)}. "
+            reason = error.strerror or type(error).__name__  # the folder, not the probe's temporary name
+            return [f"Your inputs will not be saved: cannot write in {self.folder} ({reason}). "
                     "Export a calc record (F9) to keep them."]
         return []
 

@@ -10,7 +10,13 @@ mass are two values.
 other checks with the same meaning, with their current text and the text they would get; the person
 ticks the lines to apply (``apply``). Fields of the same quantity but another object (a measured
 damping beside the damping a seismic code fixes) are never offered; ``not_offered`` says which they
-are, so the person can type a value there deliberately.
+are, so the person can type a value there deliberately. A field the target's choices leave unused
+(``Field.used_when``) is never offered.
+
+**Fields in use.** A check's choices decide which fields it uses (``CheckSpec.unused``: a beam has no
+spring stiffnesses), and of each group of alternatives (a stiffness or a static deflection) one is shown
+and used (``shown``, kept in the session). ``hidden`` names the rest: they keep their texts, and
+``used_texts`` leaves them out of what is computed, sent from and recorded.
 """
 
 from __future__ import annotations
@@ -69,7 +75,11 @@ class Workspace:
         """Project, job, engineer and note for the calc record, typed once per session."""
         self.groups = self._find_groups()
         """Meaning key -> (check id, field name) of every shared field of that meaning, in display order."""
+        self.shown: dict[str, dict[str, str]] = {spec.id: {} for spec in self.specs}
+        """Check id -> group of alternatives -> the field shown and used there."""
         self._restore(data or SessionData({}))
+        for spec in self.specs:
+            self.hidden(spec.id)  # settles which alternative each group shows
 
     # Reading and saving
 
@@ -85,6 +95,10 @@ class Workspace:
         if data.current in self.by_id:
             self.current = data.current
         self.project.update({k: v for k, v in data.project.items() if k in self.project})
+        for check_id, shown in data.alternatives.items():
+            if check_id in self.by_id:
+                groups = _alternatives(self.by_id[check_id])
+                self.shown[check_id] = {group: name for group, name in shown.items() if name in groups.get(group, ())}
         for key, members in self.groups.items():
             self._settle(key, members, data.shared.get(key))
 
@@ -125,7 +139,57 @@ class Workspace:
                  for check, fields in self.texts.items()}
         return SessionData(texts, self.system, self.current,
                            {check: sorted(names) for check, names in self.own.items() if names},
-                           dict(self.shared), dict(self.project))
+                           dict(self.shared), dict(self.project),
+                           {check: dict(groups) for check, groups in self.shown.items() if groups})
+
+    # Fields in use
+
+    def hidden(self, check_id: str) -> set[str]:
+        """Fields of a check not shown: those its choices do not use, and alternatives not shown.
+
+        A group whose shown field is not known yet shows its first field in use that has a text,
+        else its first field in use, and keeps that (a text shared in later must not switch it).
+        """
+        spec = self.by_id[check_id]
+        texts = self.texts[check_id]
+        unused = spec.unused(texts)
+        others: set[str] = set()
+        for group, members in _alternatives(spec).items():
+            usable = [name for name in members if name not in unused]
+            if not usable:
+                continue
+            shown = self.shown[check_id].get(group)
+            if shown not in usable:
+                shown = next((name for name in usable if texts.get(name, "").strip()), usable[0])
+                if group not in self.shown[check_id]:
+                    self.shown[check_id][group] = shown
+            others.update(name for name in usable if name != shown)
+        blanked = {name: "" if name in others else text for name, text in texts.items()}
+        return others | set(spec.unused(blanked))
+
+    def used_texts(self, check_id: str) -> dict[str, str]:
+        """The check's texts with the hidden fields left empty: what is computed, sent from and recorded."""
+        hidden = self.hidden(check_id)
+        return {name: "" if name in hidden else text for name, text in self.texts[check_id].items()}
+
+    def alternatives(self, check_id: str, name: str) -> list[str]:
+        """The fields of ``name``'s group of alternatives that the check's choices use, in order."""
+        spec = self.by_id[check_id]
+        group = spec.field(name).group
+        if group is None:
+            return []
+        unused = spec.unused(self.texts[check_id])
+        return [member for member in _alternatives(spec).get(group, []) if member not in unused]
+
+    def switch_alternative(self, check_id: str, name: str) -> str | None:
+        """Show the next alternative of field ``name``'s group (texts are kept); return it, or None when
+        the field has no alternative in use."""
+        usable = self.alternatives(check_id, name)
+        if len(usable) < 2 or name not in usable:
+            return None
+        following = usable[(usable.index(name) + 1) % len(usable)]
+        self.shown[check_id][self.by_id[check_id].field(name).group or ""] = following
+        return following
 
     # Typing and sharing
 
@@ -201,6 +265,9 @@ class Workspace:
             shared_key = key if key is not None and spec_field.name not in self.own[check] else None
             fields = ([(c, n) for c, n in self.groups[shared_key] if n not in self.own[c]] if shared_key
                       else [(check, spec_field.name)])
+            fields = [(c, n) for c, n in fields if n not in self.by_id[c].unused(self.texts[c])]
+            if not fields:
+                continue
             slots = {(c, self.by_id[c].field(n).group or n) for c, n in fields}
             if slots & taken:
                 continue
@@ -238,6 +305,9 @@ class Workspace:
                 continue
             for check, name in target.fields:
                 self.texts[check][name] = target.text
+                group = self.by_id[check].field(name).group
+                if group is not None:
+                    self.shown[check][group] = name  # the row shows the value sent
                 key = self.meaning_key(check, name)
                 if key is not None and name not in self.own[check]:
                     self.shared[key] = target.text
@@ -257,3 +327,12 @@ class Workspace:
 
     def _field(self, check_id: str, name: str) -> Field | None:
         return next((f for f in self.by_id[check_id].fields if f.name == name), None)
+
+
+def _alternatives(spec: CheckSpec) -> dict[str, list[str]]:
+    """Group -> names of its fields, in the check's order (groups of two or more)."""
+    groups: dict[str, list[str]] = {}
+    for spec_field in spec.fields:
+        if spec_field.group:
+            groups.setdefault(spec_field.group, []).append(spec_field.name)
+    return {group: names for group, names in groups.items() if len(names) > 1}

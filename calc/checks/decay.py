@@ -122,6 +122,7 @@ SPEC = CheckSpec(
     summary="natural frequency and damping ratio from a recorded free decay (heel drop, tap, release)",
     fields=FIELDS,
     compute=compute,
+    key_results=("natural_frequency", "damping_ratio", "fit_r_squared"),
     series=(
         Series("time", "Time", "time"),
         Series("signal", "Record as analysed", SIGNAL, "time"),

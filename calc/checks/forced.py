@@ -5,6 +5,14 @@ from __future__ import annotations
 import math
 from typing import TYPE_CHECKING
 
+from fieldmode.calc.checks.machine import (
+    BALANCE_REFERENCE,
+    balance_flag,
+    balance_values,
+    grade_fields,
+    grade_unbalance,
+    rotor_mass_unused,
+)
 from fieldmode.calc.framework import plausible
 from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.meaning import MACHINE, STRUCTURE, Meaning
@@ -26,6 +34,7 @@ FIELDS = (
     Field("force", "Force amplitude", "force", "", "kN", group="load", meaning=Meaning("force amplitude", MACHINE)),
     Field("unbalance", "Unbalance m e", "unbalance", "0.35 kg m", "kg*m", group="load",
           help="rotating mass x eccentricity; force = m e w^2", meaning=Meaning("unbalance", MACHINE)),
+    *grade_fields("load", True),
 )
 
 REFERENCES = (
@@ -49,9 +58,11 @@ def compute(inputs: Inputs) -> Result:
     frequency = inputs.value("frequency", positive=True)
     natural_frequency = sdof.angular_frequency(stiffness, mass) / (2 * math.pi)
     r = frequency / natural_frequency
-    unbalance = inputs.has("unbalance")
-    force = (forced.unbalance_force(inputs.value("unbalance", positive=True), frequency) if unbalance
-             else inputs.value("force", positive=True))
+    balance = grade_unbalance(inputs, frequency, "mass") if inputs.has("grade") else None
+    unbalance = balance is not None or inputs.has("unbalance")
+    me = (balance.unbalance if balance is not None else
+          inputs.value("unbalance", positive=True) if unbalance else 0.0)
+    force = forced.unbalance_force(me, frequency) if unbalance else inputs.value("force", positive=True)
     omega = 2 * math.pi * frequency
     static = force / stiffness
     gain = float(forced.amplification(r, zeta))
@@ -60,7 +71,7 @@ def compute(inputs: Inputs) -> Result:
     if unbalance:
         peak_ratio = forced.unbalance_peak_ratio(zeta)
         # M u / (m e) peaks at peak_gain, or without a peak tends to 1 at high speed
-        peak_amplitude = inputs.value("unbalance") / mass * (peak_gain if forced.has_peak(zeta) else 1.0)
+        peak_amplitude = me / mass * (peak_gain if forced.has_peak(zeta) else 1.0)
     else:
         peak_ratio = forced.peak_ratio(zeta)
         peak_amplitude = static * peak_gain
@@ -85,13 +96,17 @@ def compute(inputs: Inputs) -> Result:
         values["peak_frequency"] = quantity("Peak frequency", "frequency", peak_ratio * natural_frequency)
     if unbalance:
         values["unbalance_amplification"] = quantity("Unbalance response M u/(m e) = r^2 R_d", "number", r**2 * gain)
+    if balance is not None:
+        values.update(balance_values(balance, force=False))
     grid = forced.ratio_grid(r, zeta)
     series = {"frequency_ratio": grid, "amplification": forced.amplification(grid, zeta),
               "phase": forced.phase(grid, zeta)}
-    references = REFERENCES + ((UNBALANCE_REFERENCE,) if unbalance else ())
+    references = (REFERENCES + ((UNBALANCE_REFERENCE,) if unbalance else ())
+                  + ((BALANCE_REFERENCE,) if balance is not None else ()))
     notes = (plausible.static_deflection(mass * sdof.STANDARD_GRAVITY / stiffness, "the stiffness unit"),
              plausible.operating_frequency(frequency))
     flags = _flags(r, zeta, natural_frequency, unbalance) + tuple(note for note in notes if note)
+    flags += (balance_flag(balance, frequency),) if balance is not None else rotor_mass_unused(inputs)
     return inputs.result(values, series=series, flags=flags, references=references)
 
 

@@ -7,6 +7,14 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
+from fieldmode.calc.checks.machine import (
+    BALANCE_REFERENCE,
+    balance_flag,
+    balance_values,
+    grade_fields,
+    grade_unbalance,
+    rotor_mass_unused,
+)
 from fieldmode.calc.framework import plausible
 from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.meaning import MACHINE, MOUNTS, Meaning
@@ -31,6 +39,12 @@ FIELDS = (
           help="all mounts together; give it, a target isolation, or both", meaning=Meaning("stiffness", MOUNTS)),
     Field("target_isolation", "Target isolation", "ratio", "90 %", "", required=False,
           help="fraction of the force kept from the support, e.g. 90 %", meaning=Meaning("target isolation", MOUNTS)),
+    Field("force", "Force amplitude", "force", "", "kN", group="load", required=False,
+          help="optional: the machine's harmonic force, to give the force into the support",
+          meaning=Meaning("force amplitude", MACHINE)),
+    Field("unbalance", "Unbalance m e", "unbalance", "", "kg*m", group="load", required=False,
+          help="optional: rotating mass x eccentricity; force = m e w^2", meaning=Meaning("unbalance", MACHINE)),
+    *grade_fields("load", False),
 )
 
 REFERENCES = (
@@ -92,11 +106,34 @@ def compute(inputs: Inputs) -> Result:
         "static_deflection": quantity("Static deflection under the weight", "length", weight / stiffness),
         **_start_up_peak(zeta, natural_frequency),
     }
+    values.update(_load(inputs, frequency, transmitted, mounts, flags))
     flags += _flags(inputs, r, transmitted, natural_frequency, zeta, required_stiffness, stiffness)
     flags += _plausibility(inputs, frequency, weight / stiffness)
     series = {"frequency_ratio": (grid := _grid(r, zeta)), "transmissibility": forced.transmissibility(grid, zeta)}
-    references = REFERENCES + ((UNDAMPED_REFERENCE,) if zeta == 0 else ())
+    references = (REFERENCES + ((UNDAMPED_REFERENCE,) if zeta == 0 else ())
+                  + ((BALANCE_REFERENCE,) if inputs.has("grade") else ()))
     return inputs.result(values, series=series, flags=tuple(flags), references=references)
+
+
+def _load(inputs: Inputs, frequency: float, transmitted: float, mounts: int, flags: list[Flag]) -> dict[str, Value]:
+    """The machine's force (given, from m e, or from a balance grade) and what of it reaches the support."""
+    values: dict[str, Value] = {}
+    if inputs.has("grade"):
+        balance = grade_unbalance(inputs, frequency, "mass")
+        force = balance.force
+        values.update(balance_values(balance, force=False))
+        flags.append(balance_flag(balance, frequency))
+    elif inputs.has("unbalance"):
+        force = forced.unbalance_force(inputs.value("unbalance", positive=True), frequency)
+    elif inputs.has("force"):
+        force = inputs.value("force", positive=True)
+    else:
+        flags.extend(rotor_mass_unused(inputs))
+        return values
+    flags.extend(rotor_mass_unused(inputs))
+    return {"force_amplitude": quantity("Force amplitude", "force", force), **values,
+            "transmitted_force": quantity("Force into the support", "force", transmitted * force),
+            "transmitted_per_mount": quantity("Force per mount", "force", transmitted * force / mounts)}
 
 
 def _isolation_or_amplification(transmitted: float) -> dict[str, Value]:

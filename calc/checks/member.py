@@ -18,6 +18,10 @@ ELEMENTS = ("beam", "columns", "axial", "springs")
 SECTIONS = ("rectangle", "solid-circle", "hollow-circle")
 END_CONDITIONS = ("simply-supported", "fixed-fixed", "fixed-pinned", "cantilever")
 DEFAULT_ENDS = {"beam": "simply-supported", "columns": "fixed-fixed"}
+BENDING = {"element": ("beam", "columns")}
+"""Elements that bend (end conditions, second moment of area)."""
+SOLID = {"element": ("beam", "columns", "axial")}
+"""Elements made of a material and a section (every element but springs)."""
 
 _MATERIAL_HELP = ", ".join(f"{m.name} " + " (SI) or ".join(e.written for e in m.moduli.values()) +
                            (" (US)" if len(m.moduli) > 1 else "") for m in member.MATERIALS.values())
@@ -25,29 +29,33 @@ _MATERIAL_HELP = ", ".join(f"{m.name} " + " (SI) or ".join(e.written for e in m.
 FIELDS = (
     Field("element", "Element", "choice", "beam", choices=ELEMENTS,
           help="beam: load at midspan; columns: sway of a storey; axial: EA/L; springs: combine stiffnesses"),
-    Field("end_conditions", "End conditions", "choice", "", required=False, choices=END_CONDITIONS,
+    Field("end_conditions", "End conditions", "choice", "", required=False, choices=END_CONDITIONS, used_when=BENDING,
           help="beam: simply-supported 48, fixed-fixed 192, fixed-pinned 768/7 EI/L^3 (default simply-supported); "
                "columns: fixed-fixed 12, fixed-pinned or cantilever 3 EI/L^3 (default fixed-fixed)"),
-    Field("count", "Number of members", "count", "1", "", required=False,
+    Field("count", "Number of members", "count", "1", "", required=False, used_when=SOLID,
           help="equal members acting together (columns of a storey, beams sharing the load)"),
-    Field("length", "Length or span", "length", "7.2 m", "m", required=False),
-    Field("material", "Material", "choice", "steel", group="modulus", required=False,
+    Field("length", "Length or span", "length", "7.2 m", "m", required=False, used_when=SOLID),
+    Field("material", "Material", "choice", "steel", group="modulus", required=False, used_when=SOLID,
           choices=tuple(member.MATERIALS), help=f"sets E: {_MATERIAL_HELP}"),
-    Field("modulus", "Young's modulus E", "modulus", "", "GPa", group="modulus", required=False),
+    Field("modulus", "Young's modulus E", "modulus", "", "GPa", group="modulus", required=False, used_when=SOLID),
     Field("second_moment", "Second moment of area I", "second_moment", "29000 cm^4", "cm^4", group="section",
-          required=False, help="of one member, about its bending axis"),
+          required=False, used_when=BENDING, help="of one member, about its bending axis"),
     Field("section", "Section shape", "choice", "", group="section", required=False, choices=SECTIONS,
-          help="I (and A) from dimensions: rectangle width x depth; circle diameter (and wall)"),
-    Field("width", "Width b", "length", "", "mm", required=False),
-    Field("depth", "Depth d (bending direction)", "length", "", "mm", required=False),
-    Field("diameter", "Outside diameter D", "length", "", "mm", required=False),
-    Field("wall", "Wall thickness t", "length", "", "mm", required=False),
-    Field("area", "Area A", "area", "", "mm^2", required=False, help="axial only (or give the section)"),
+          used_when=SOLID, help="I (and A) from dimensions: rectangle width x depth; circle diameter (and wall)"),
+    Field("width", "Width b", "length", "", "mm", required=False, used_when={"section": ("rectangle",)}),
+    Field("depth", "Depth d (bending direction)", "length", "", "mm", required=False,
+          used_when={"section": ("rectangle",)}),
+    Field("diameter", "Outside diameter D", "length", "", "mm", required=False,
+          used_when={"section": ("solid-circle", "hollow-circle")}),
+    Field("wall", "Wall thickness t", "length", "", "mm", required=False, used_when={"section": ("hollow-circle",)}),
+    Field("area", "Area A", "area", "", "mm^2", required=False, used_when={"element": ("axial",)},
+          help="axial only (or give the section)"),
     Field("springs", "Spring stiffnesses", "stiffness", "", "kN/mm", required=False, many=True,
-          help="comma-separated, e.g. '40 kN/mm, 25 kN/mm'"),
+          used_when={"element": ("springs",)}, help="comma-separated, e.g. '40 kN/mm, 25 kN/mm'"),
     Field("arrangement", "Arrangement", "choice", "", required=False, choices=("series", "parallel"),
-          help="how the springs combine (default series)"),
+          used_when={"element": ("springs",)}, help="how the springs combine (default series)"),
     Field("mass_per_length", "Mass per length", "mass_per_length", "1.2 t/m", "kg/m", required=False,
+          used_when={"element": ("beam",)},
           help="beams: gives the first natural frequency; a weight per length is read as w/g0"),
 )
 
@@ -109,8 +117,6 @@ def compute(inputs: Inputs) -> Result:
     if element == "beam" and inputs.has("mass_per_length"):
         values.update(_beam_dynamics(inputs, modulus, second_moment, length, ends, count, stiffness))
         references += [REFERENCES["frequency"], REFERENCES["rule"]]
-    elif element == "columns" and inputs.has("mass_per_length"):
-        flags.append(Flag("info", "mass per length is not used for columns: give the storey mass to sdof"))
     return inputs.result(values, flags=tuple(flags), references=tuple(references))
 
 

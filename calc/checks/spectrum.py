@@ -208,6 +208,7 @@ SPEC = CheckSpec(
     summary="response spectrum of an accelerogram (sd, sv, psv, psa, total acceleration) with pga, pgv, pgd",
     fields=FIELDS,
     compute=compute,
+    key_results=("pga", "pgv", "pgd", "peak_psa", "peak_psa_period"),
     caution=SEISMIC_CAUTION,
     series=(
         Series("period", "Period", "time"),

@@ -39,10 +39,11 @@ FIELDS = (
     Field("excitation", "Excitation", "choice", "force", choices=EXCITATIONS, required=False,
           help="force (default): harmonic force on the structure (Den Hartog); ground: harmonic ground acceleration "
                "(Warburton)"),
-    Field("force", "Force amplitude", "force", "", "kN", required=False,
+    Field("force", "Force amplitude", "force", "", "kN", required=False, used_when={"excitation": ("force", "")},
           help="harmonic force for the displacement and damper stroke (excitation force)"),
     Field("ground_acceleration", "Ground acceleration amplitude", "acceleration", "", "m/s^2",
-          required=False, help="for the displacement and damper stroke (excitation ground)"),
+          required=False, used_when={"excitation": ("ground",)},
+          help="for the displacement and damper stroke (excitation ground)"),
 )
 
 REFERENCES = {
@@ -101,7 +102,7 @@ def compute(inputs: Inputs) -> Result:
         values["peak_reduction"] = quantity("Peak reduction", "ratio", 1 - peak / bare)
     else:
         flags.append(Flag("info", "undamped mode: without a damper the resonant response is unbounded"))
-    static = _static_displacement(inputs, excitation, modal_mass, omega_p, flags)
+    static = _static_displacement(inputs, excitation, modal_mass, omega_p)
     if static is not None:
         values["peak_displacement"] = quantity("Peak displacement of the structure", "length", peak * static)
         values["stroke"] = quantity("Damper stroke (relative motion)", "length", stroke * static)
@@ -122,13 +123,11 @@ def _solve_mass_ratio(inputs: Inputs, zeta_p: float, excitation: str) -> float:
         raise inputs.error("target_damping", str(error)) from error
 
 
-def _static_displacement(inputs: Inputs, excitation: str, modal_mass: float, omega_p: float,
-                         flags: list[Flag]) -> float | None:
-    """Static displacement (m) of the structure under the given load amplitude, if one was given."""
+def _static_displacement(inputs: Inputs, excitation: str, modal_mass: float, omega_p: float) -> float | None:
+    """Static displacement (m) of the structure under the given load amplitude, if one was given (the
+    other excitation's amplitude is not read: :attr:`Field.used_when`)."""
     stiffness = modal_mass * omega_p**2
-    wanted, other = ("force", "ground_acceleration") if excitation == "force" else ("ground_acceleration", "force")
-    if inputs.has(other):
-        flags.append(Flag("info", f"{inputs.spec.field(other).label.lower()} ignored for excitation {excitation}"))
+    wanted = "force" if excitation == "force" else "ground_acceleration"
     if not inputs.has(wanted):
         return None
     amplitude = inputs.value(wanted, positive=True)

@@ -39,7 +39,8 @@ PRESSURE = "[mass]/[length]/[time]**2"
 _UNIT_NAMES = {
     "m/s^2": "m/s^2", "mm/s^2": "mm/s^2", "g0": "g", "N*s/m": "N s/m", "kN*s/m": "kN s/m",
     "lbf*s/in": "lbf s/in", "kip*s/in": "kip s/in", "kg*m": "kg m", "kg*mm": "kg mm",
-    "lb*in": "lb in", "oz*in": "oz in", "%": "%", "": "", "um": "µm", "t/m": "t/m",
+    "lb*in": "lb in", "oz*in": "oz in", "g*mm": "g mm", "ft*lbf": "ft lbf", "kip*ft": "kip ft", "%": "%", "": "",
+    "um": "µm", "t/m": "t/m", "m/s^1.75": "m/s^1.75",
 }
 
 
@@ -64,6 +65,8 @@ KINDS: dict[str, Kind] = {k.name: k for k in (
           "'0.05 m/s' or '5 mm/s'"),
     _kind("acceleration", "acceleration", "[length]/[time]^2", "m/s^2", ("m/s^2", "mm/s^2"), ("g0",),
           "'0.25 g' or '2.45 m/s^2'"),
+    _kind("vibration_dose", "vibration dose value", "[length]/[time]^1.75", "m/s^1.75", ("m/s^1.75",),
+          ("m/s^1.75",), "'0.4 m/s^1.75'"),
     _kind("damping_coefficient", "damping coefficient", f"{FORCE}*[time]/[length]", "N*s/m",
           ("kN*s/m", "N*s/m"), ("kip*s/in", "lbf*s/in"), "'35 kN s/m'"),
     _kind("ratio", "ratio", "", "", ("%",), ("%",), "'3 %' or '0.03'", ratio=True),
@@ -80,6 +83,8 @@ KINDS: dict[str, Kind] = {k.name: k for k in (
           "'350 kg/m^2' or a weight '3.5 kPa'", weight_of=PRESSURE),
     _kind("crowd_density", "crowd density (pedestrians per area)", "1/[length]^2", "1/m^2", ("1/m^2",),
           ("1/ft^2",), "'0.5' (pedestrians per m^2) or '0.05 1/ft^2'"),
-    _kind("unbalance", "unbalance (mass x eccentricity)", "[mass]*[length]", "kg*m", ("kg*m", "kg*mm"),
+    _kind("energy", "energy", f"{FORCE}*[length]", "J", ("MJ", "kJ", "J"), ("kip*ft", "ft*lbf"),
+          "'30 kJ' or '22000 ft lbf'"),
+    _kind("unbalance", "unbalance (mass x eccentricity)", "[mass]*[length]", "kg*m", ("kg*m", "kg*mm", "g*mm"),
           ("lb*in", "oz*in"), "'0.5 kg m' or '120 g mm'"),
 )}

@@ -35,22 +35,31 @@ def read_inputs(spec: CheckSpec, texts: Mapping[str, str],
         raise ValueError(f"unit system {system!r} is not one of {SYSTEMS}")
     readings: dict[str, Reading | tuple[Reading, ...] | str] = {}
     errors: dict[str, InputError] = {}
+    unused = spec.unused(texts)
+    ignored: dict[str, str] = {}
     for spec_field in spec.fields:
         text = (texts.get(spec_field.name) or "").strip()
         if not text:
+            continue
+        if spec_field.name in unused:
+            ignored[spec_field.name] = unused[spec_field.name]
             continue
         try:
             readings[spec_field.name] = read_field(spec_field, text)
         except InputError as error:
             errors[spec_field.name] = error
-    _check_groups(spec, readings, errors)
-    return Inputs(spec, readings, dict(texts), system), errors
+    _check_groups(spec, readings, errors, unused)
+    return Inputs(spec, readings, dict(texts), system, ignored), errors
 
 
-def _check_groups(spec: CheckSpec, readings: Mapping[str, object], errors: dict[str, InputError]) -> None:
-    """Errors for required fields left empty and for groups of alternatives given twice or not at all."""
+def _check_groups(spec: CheckSpec, readings: Mapping[str, object], errors: dict[str, InputError],
+                  unused: Mapping[str, str]) -> None:
+    """Errors for required fields left empty and for groups of alternatives given twice or not at all;
+    fields the choices leave unused are neither required nor alternatives."""
     groups: dict[str, list[Field]] = {}
     for spec_field in spec.fields:
+        if spec_field.name in unused:
+            continue
         if spec_field.group:
             groups.setdefault(spec_field.group, []).append(spec_field)
         elif spec_field.required and spec_field.name not in readings and spec_field.name not in errors:
@@ -104,11 +113,9 @@ def _read_quantity(spec_field: Field, text: str, label: str, unit: str | None) -
 
 
 def _read_choice(spec_field: Field, text: str) -> str:
-    wanted = text.strip().lower()
-    exact = [c for c in spec_field.choices if c.lower() == wanted]
-    starts = [c for c in spec_field.choices if c.lower().startswith(wanted)]
-    if exact or len(starts) == 1:
-        return (exact or starts)[0]
+    picked = spec_field.chosen(text)
+    if picked:
+        return picked
     raise InputError(spec_field.label, text, "not one of the choices", " | ".join(spec_field.choices))
 
 
@@ -144,10 +151,12 @@ class Inputs:
     """The fields of one check, read and in SI, handed to its compute function."""
 
     def __init__(self, spec: CheckSpec, readings: Mapping[str, Reading | tuple[Reading, ...] | str],
-                 texts: Mapping[str, str], system: str = "si") -> None:
+                 texts: Mapping[str, str], system: str = "si", ignored: Mapping[str, str] | None = None) -> None:
         self.spec = spec
         self.system = system
         """The unit system in use, "si" or "us" (values are SI whatever it is)."""
+        self.ignored = dict(ignored or {})
+        """Fields given a text that the choices do not use: name -> why (:meth:`CheckSpec.unused`)."""
         self._readings = dict(readings)
         self._texts = dict(texts)
 
@@ -226,12 +235,15 @@ class Inputs:
         return typed
 
     def notes(self) -> tuple[Flag, ...]:
-        """Flags for how inputs were read: a suspicious bare ratio is a caution, the rest info."""
+        """Flags for how inputs were read: a suspicious bare ratio is a caution, the rest info; a field
+        given that the choices do not use is a caution (it was ignored)."""
         flags = []
         for name, typed in self.typed().items():
             if typed.note:
                 level = "caution" if typed.note.startswith("did you mean") else "info"
                 flags.append(Flag(level, f"{self.spec.field(name).label}: {typed.note}"))  # type: ignore[arg-type]
+        flags += [Flag("caution", f"{self.spec.field(name).label} ignored: {why}")
+                  for name, why in self.ignored.items()]
         return tuple(flags)
 
     def result(self, values: Mapping[str, Value], *, series: Mapping[str, np.ndarray] | None = None,

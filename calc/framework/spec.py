@@ -11,8 +11,9 @@ core is loaded; reading typed text is in :mod:`fieldmode.calc.framework.reading`
 
 from __future__ import annotations
 
-from collections.abc import Callable, Mapping
+from collections.abc import Callable, Iterable, Mapping
 from dataclasses import dataclass
+from dataclasses import field as dataclass_field
 from typing import TYPE_CHECKING
 
 from fieldmode.calc.framework.kinds import KINDS, MAX_LIST_TEXT, MAX_PATH_TEXT, MAX_QUANTITY_TEXT
@@ -35,7 +36,8 @@ class Field:
     sharing a ``group`` are alternatives: exactly one is given. ``many`` makes it a
     comma-separated list (numbers separated by blanks, '5 10 Hz', are items too).
     ``shared`` fields carry their value to other checks of a session that have a field
-    of the same meaning.
+    of the same meaning. ``used_when`` names the choices that use the field (see
+    :meth:`CheckSpec.unused`).
     """
 
     name: str
@@ -55,6 +57,19 @@ class Field:
     other_kinds: tuple[str, ...] = ()
     """Other physical kinds the field accepts (a peak amplitude as a length, velocity or acceleration);
     the text is read as the first of ``kind`` and these that fits it."""
+    used_when: Mapping[str, tuple[str, ...]] = dataclass_field(default_factory=dict, hash=False)
+    """The choices that use this field: choice field name -> the choices that use it ('' for the choice
+    left empty), e.g. ``{"element": ("beam",)}``. The field is used when every choice named is one of
+    its values; otherwise it is not read (the app hides it, the command line notes it as ignored)."""
+
+    def chosen(self, text: str) -> str | None:
+        """The choice ``text`` picks ('' when empty; a unique start is enough), None when it picks none."""
+        wanted = text.strip().lower()
+        if not wanted:
+            return ""
+        exact = [c for c in self.choices if c.lower() == wanted]
+        starts = [c for c in self.choices if c.lower().startswith(wanted)]
+        return (exact or starts)[0] if exact or len(starts) == 1 else None
 
     @property
     def option(self) -> str:
@@ -73,6 +88,12 @@ class Field:
         """Label with its unit, e.g. 'Stiffness (kN/mm)'."""
         unit = self.unit if self.unit is not None else (KINDS[self.kind].si if self.kind in KINDS else "")
         return f"{self.label} ({unit})" if unit else self.label
+
+
+def either(words: Iterable[str]) -> str:
+    """'a', 'a or b', 'a, b or c'."""
+    listed = list(words)
+    return " or ".join(filter(None, (", ".join(listed[:-1]), listed[-1] if listed else "")))
 
 
 SIGNAL = "signal"
@@ -107,9 +128,52 @@ class CheckSpec:
     caution: str = CAUTION
     series: tuple[Series, ...] = ()
     """Every curve the check can make; a result holds some or all of them."""
+    key_results: tuple[str, ...] = ()
+    """Names of the results a table of many records shows, most telling first (those that fit 80
+    columns); empty: the first results that fit."""
+
+    def __post_init__(self) -> None:
+        """Refuse a ``used_when`` that names no earlier choice field or no choice of it (a bug in the check)."""
+        earlier: dict[str, Field] = {}
+        for spec_field in self.fields:
+            for name, values in spec_field.used_when.items():
+                choice = earlier.get(name)
+                if choice is None or choice.kind != "choice" or not values or any(
+                        value and value not in choice.choices for value in values):
+                    raise ValueError(f"check {self.id}: field {spec_field.name} is used when {name} is {values}, "
+                                     "which is not an earlier choice field and its choices")
+            earlier[spec_field.name] = spec_field
 
     def field(self, name: str) -> Field:
         return next(f for f in self.fields if f.name == name)
+
+    @property
+    def record_field(self) -> Field | None:
+        """The positional file field a record check reads (a folder or several files run it per record)."""
+        return next((f for f in self.fields if f.kind == "path" and f.positional), None)
+
+    def unused(self, texts: Mapping[str, str]) -> dict[str, str]:
+        """Fields the choices in ``texts`` do not use: field name -> why, e.g. 'used only when element is
+        beam (here axial)'.
+
+        A field is unused when a choice it names picks another value, or when that choice field is
+        itself unused (a section's width, for springs). A choice that picks nothing readable leaves
+        its fields in use: its own error is shown.
+        """
+        found: dict[str, str] = {}
+        for spec_field in self.fields:
+            for name, values in spec_field.used_when.items():
+                if name in found:
+                    found[spec_field.name] = found[name]
+                    break
+                choice = self.field(name)
+                picked = choice.chosen(texts.get(name) or "")
+                if picked is not None and picked not in values:
+                    allowed = either(value or "not given" for value in values)
+                    found[spec_field.name] = (f"used only when {choice.label.lower()} is {allowed} "
+                                              f"(here {picked or 'not given'})")
+                    break
+        return found
 
     def demo_texts(self) -> dict[str, str]:
         return {f.name: f.default for f in self.fields}

@@ -30,7 +30,7 @@ from fieldmode.calc.physics.constants import STANDARD_GRAVITY
 AISC_DG11 = "AISC DG11"
 SCI_P354 = "SCI P354"
 GUIDES = (AISC_DG11, SCI_P354)
-CUTOFF_HZ: dict[str, float] = {AISC_DG11: 9.0, SCI_P354: footfall.LOW_FREQUENCY_FLOOR}
+CUTOFF_HZ: dict[str, float] = {AISC_DG11: footfall.DG11_LOW_FREQUENCY_FLOOR, SCI_P354: footfall.LOW_FREQUENCY_FLOOR}
 """Low/high-frequency floor cutoff by guide (Hz): AISC Design Guide 11 (2nd ed.) 4.1 applies its walking
 criterion up to 9 Hz; SCI P354 puts the cutoff at 10 Hz."""
 

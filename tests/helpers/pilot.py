@@ -27,10 +27,17 @@ async def settle(app: FieldmodeApp, pilot: Pilot) -> CheckView:
 
 
 async def focus_field(app: FieldmodeApp, pilot: Pilot, name: str) -> Input:
-    """Move to a field with Tab alone; return its text box."""
+    """Move to a field with Tab alone (and Ctrl+T, for an alternative not shown); return its text box."""
     view = app.current_view
     target = view.row(name).input
+    alternatives = app.workspace.alternatives(view.spec.id, name)
+    shown = next((view.row(other).input for other in alternatives if view.row(other).display), target)
     for _ in range(len(view.spec.fields) + 2):
+        if app.focused is shown:
+            for _ in alternatives:
+                if app.focused is target:
+                    return target
+                await pilot.press("ctrl+t")
         if app.focused is target:
             return target
         await pilot.press("tab")
@@ -42,6 +49,20 @@ async def type_into(app: FieldmodeApp, pilot: Pilot, name: str, text: str) -> Ch
     await focus_field(app, pilot, name)
     await pilot.press("home", "ctrl+k", *keys_for(text))
     return await settle(app, pilot)
+
+
+async def reveal(app: FieldmodeApp, pilot: Pilot, name: str) -> dict[str, str]:
+    """Type into the choices a field depends on the first choice that uses it (by keys, as a person
+    would); return the texts of the choice fields changed, as they were before."""
+    view = app.current_view
+    changed: dict[str, str] = {}
+    for choice, values in view.spec.field(name).used_when.items():
+        changed |= await reveal(app, pilot, choice)
+        if choice not in app.workspace.hidden(view.spec.id) and view.row(choice).input.value in values:
+            continue
+        changed.setdefault(choice, view.row(choice).input.value)
+        await type_into(app, pilot, choice, next((value for value in values if value), ""))
+    return changed
 
 
 def keys_for(text: str) -> list[str]:

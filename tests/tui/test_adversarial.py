@@ -135,7 +135,7 @@ DAMAGE = st.sampled_from([
 
 
 @settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.function_scoped_fixture])
-@given(damage=DAMAGE, check=st.sampled_from(["decay", "spectrum"]))
+@given(damage=DAMAGE, check=st.sampled_from(["decay", "spectrum", "occupants"]))
 def test_a_damaged_record_is_answered_or_refused_in_one_line(tmp_path_factory, capsys, damage, check) -> None:
     path = tmp_path_factory.mktemp("damaged") / "rec.csv"
     _write(path, "time,acc [m/s^2]", ",", ".", "\n", "", "utf-8")

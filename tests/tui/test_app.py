@@ -87,6 +87,7 @@ def test_stiffness_sent_to_another_check_replaces_its_alternative(make_app):
             view = await settle(app, pilot)
             assert view.row("stiffness").input.value == "12.5 kN/mm"
             assert view.row("static_deflection").input.value == ""
+            assert view.row("stiffness").display and not view.row("static_deflection").display  # the row shows it
             assert view.outcome.errors == {}
             # Source: Chopra, Dynamics of Structures, eq. 2.1.4: f_n = (1 / 2 pi) sqrt(k / m)
             expected = math.sqrt(12.5e6 / 9600) / (2 * math.pi)

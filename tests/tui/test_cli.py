@@ -622,3 +622,51 @@ def test_the_table_follows_the_units_and_carries_the_overlay(capsys: pytest.Capt
 def test_a_period_grid_gives_no_table(capsys: pytest.CaptureFixture[str]) -> None:
     code, out, _ = run(capsys, "spectrum", str(demo_file(GROUND_MOTION)), "--signal-unit", "g")
     assert code == 0 and "Curves by" not in out
+
+
+@pytest.mark.parametrize("argv", [
+    ["sdof", "--mass", "10 t", "--mass", "12 t", "--stiffness", "42 kN/mm"],
+    ["sdof", "--mass=10 t", "--stiffness", "42 kN/mm", "--mass", "12 t"],
+    ["sdof", "--mass", "10 t", "--stiffness", "42 kN/mm", "--ma", "12 t"],  # an abbreviation argparse accepts
+    ["sdof", "--mass", "10 t", "--stiffness", "42 kN/mm", "--mass", "10 t"],  # the same text twice: still refused
+    ["sdof", "--mass", "10 t", "--stiffness", "42 kN/mm", "--units", "si", "--units", "us"],
+], ids=["twice", "equals-then-space", "abbreviated", "same-text", "units"])
+def test_a_repeated_option_is_refused_naming_it(capsys: pytest.CaptureFixture[str], argv: list[str]) -> None:
+    """`--mass 10t --mass 12t` kept the last silently: a wrong answer that looks right. Refused, in one line."""
+    code, out, err = run(capsys, *argv)
+    repeated = "--units" if "--units" in argv else "--mass"
+    assert code == 2 and out == ""
+    assert err.count("\n") == 1 and "Traceback" not in err
+    assert f"{repeated} given more than once" in err
+
+
+def test_a_repeated_option_with_underscores_names_the_dashed_option(capsys: pytest.CaptureFixture[str]) -> None:
+    code, out, err = run(capsys, "sdof", "--mass", "9.6 t", "--static-deflection", "2 mm",
+                         "--static-def", "3 mm")
+    assert code == 2 and out == "" and err.count("\n") == 1
+    assert "--static-deflection given more than once" in err
+
+
+def test_a_field_the_chosen_element_does_not_use_is_computed_without_it_and_noted(
+        capsys: pytest.CaptureFixture[str]) -> None:
+    columns = ["member", "--element", "columns", "--count", "4", "--length", "3.6 m", "--material", "steel",
+               "--second-moment", "8360 cm^4"]
+    code, plain, _ = run(capsys, *columns, "--json")
+    code_given, given, err = run(capsys, *columns, "--mass-per-length", "1.2 t/m", "--springs", "5 kN/mm", "--json")
+    assert code == code_given == 0 and err == ""
+    before, after = json.loads(plain), json.loads(given)
+    # Source: Chopra, Dynamics of Structures, sec. 1.3: four fixed-fixed columns k = 4 x 12 EI / h^3
+    assert after["results"]["stiffness"]["value"] == pytest.approx(4 * 12 * 210e9 * 8360e-8 / 3.6**3)
+    assert after["results"] == before["results"] and after["inputs"] == before["inputs"]
+    notes = [flag for flag in after["flags"] if flag not in before["flags"]]
+    assert notes == [
+        {"level": "caution", "text": "Spring stiffnesses ignored: used only when element is springs (here columns)"},
+        {"level": "caution", "text": "Mass per length ignored: used only when element is beam (here columns)"}]
+    code, text, _ = run(capsys, *columns, "--mass-per-length", "1.2 t/m")
+    assert code == 0 and "!  caution: Mass per length ignored: used only when element is beam" in text
+
+
+def test_help_says_which_choice_uses_a_field(capsys: pytest.CaptureFixture[str]) -> None:
+    code, out, _ = run(capsys, "member", "--help")
+    assert code == 0
+    assert "(used when --element is beam)" in " ".join(out.split())

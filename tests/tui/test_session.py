@@ -2,8 +2,10 @@
 
 from __future__ import annotations
 
+import errno
 import json
 import os
+from pathlib import Path
 
 import pytest
 
@@ -19,7 +21,8 @@ def test_state_dir_follows_xdg_state_home(tmp_path):
 
 def test_save_then_load_round_trip(tmp_path):
     store = SessionStore(tmp_path / "state")
-    data = SessionData({"sdof": {"mass": "9.6 t", "damping": ""}}, "us", "sdof", {"sdof": ["damping"]})
+    data = SessionData({"sdof": {"mass": "9.6 t", "damping": ""}}, "us", "sdof", {"sdof": ["damping"]},
+                       alternatives={"sdof": {"stiffness": "static_deflection"}})
     assert store.save(data) == ""
     loaded = store.load()
     assert loaded.messages == [] and loaded.data == data
@@ -51,10 +54,25 @@ def test_atomic_write_leaves_the_old_file_when_it_fails(tmp_path, monkeypatch):
 
 @pytest.mark.parametrize("text", ["", "[]", "{", '{"format": "fieldmode-session", "checks": []}',
                                   '{"format": "fieldmode-session", "checks": {"a": {"b": 1}}}',
-                                  '{"format": "fieldmode-session", "checks": {}, "own": {"a": "b"}}'])
+                                  '{"format": "fieldmode-session", "checks": {}, "own": {"a": "b"}}',
+                                  '{"format": "fieldmode-session", "checks": {}, "alternatives": {"a": ["b"]}}',
+                                  '{"format": "fieldmode-session", "checks": {}, "alternatives": {"a": {"b": 1}}}'])
 def test_parse_refuses_what_is_not_a_session(text):
     with pytest.raises(ValueError):
         parse_session(text)
+
+
+def test_an_unwritable_folder_is_named_not_the_probe_file(tmp_path, monkeypatch):
+    folder = tmp_path / "fieldmode"
+    folder.mkdir()
+
+    def refuse(dir):  # a read-only file system refuses the probe's temporary file, naming it
+        raise OSError(errno.EROFS, "Read-only file system", str(Path(dir) / "tmpk4xelf83"))
+
+    monkeypatch.setattr("fieldmode.tui.session.tempfile.TemporaryFile", refuse)
+    message = SessionStore(folder).probe()[0]
+    assert f"cannot write in {folder}" in message and "Read-only file system" in message
+    assert "tmpk4xelf83" not in message
 
 
 def test_unknown_system_falls_back_to_si():

@@ -118,3 +118,19 @@ def test_restore_keeps_known_checks_and_fields_only():
     assert space.texts["sdof"]["stiffness"] == sdof.SPEC.field("stiffness").default
     assert space.system == "us" and space.own["sdof"] == {"damping"}
     assert "gone" not in space.texts
+
+
+def test_alternatives_shown_are_restored_and_a_shared_text_never_switches_them():
+    data = SessionData({"sdof": {"damping_coefficient": "3 kN*s/m"}}, shared={"structure: damping ratio": ""},
+                       alternatives={"sdof": {"stiffness": "static_deflection", "nonsense": "mass"},
+                                     "gone": {"stiffness": "stiffness"}})
+    space = Workspace((sdof.SPEC, BY_ID["forced"]), data)
+    assert space.shown["sdof"] == {"stiffness": "static_deflection", "damping": "damping_coefficient"}
+    assert space.hidden("sdof") == {"stiffness", "damping"}
+    space.set_text("forced", "damping", "4 %")  # shared into sdof's damping, which is not shown
+    assert space.texts["sdof"]["damping"] == "4 %" and space.hidden("sdof") == {"stiffness", "damping"}
+    used = space.used_texts("sdof")
+    assert used["damping"] == "" and used["damping_coefficient"] == "3 kN*s/m" and used["stiffness"] == ""
+    assert space.switch_alternative("sdof", "static_deflection") == "stiffness"
+    assert space.snapshot().alternatives["sdof"]["stiffness"] == "stiffness"
+    assert space.switch_alternative("sdof", "mass") is None  # no alternative

@@ -6,6 +6,9 @@ drawing one panel from a Result onto a plotext-like object ``plt`` (the ``plt`` 
 textual-plotext ``PlotextPlot``). A draw function never computes physics: it plots the
 check's declared series and marks values of its results. A check without a module here has
 no chart.
+
+:func:`panels_of` hands out each draw function wrapped by :func:`common.readable`, which gives every axis
+the panel did not tick itself round tick values (1-2-2.5-5 steps; 1-2-5 on log axes).
 """
 
 from __future__ import annotations
@@ -30,5 +33,7 @@ def panels_of(check_id: str) -> tuple[DrawFunction, ...]:
         if missing.name != name:
             raise
         return ()
-    panels: tuple[DrawFunction, ...] = module.PANELS
+    from fieldmode.tui.charts.common import readable
+
+    panels: tuple[DrawFunction, ...] = tuple(readable(draw) for draw in module.PANELS)
     return panels

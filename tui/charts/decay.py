@@ -28,8 +28,9 @@ def draw_record(plt: Any, result: Result, system: str) -> None:
     peaks = series["peak_amplitude"]
     step = max(1, len(peaks) // 60)
     plt.scatter(series["peak_time"][::step], peaks[::step] * factor, marker="x")
-    plt.title(f"Record{f' ({unit})' if unit else ''}: envelope ., peaks x")
+    plt.title("Record: envelope ., peaks x")
     plt.xlabel("time (s)")
+    plt.ylabel(f"signal ({unit or 'as recorded'})")
 
 
 def draw_spectrum(plt: Any, result: Result, system: str) -> None:
@@ -37,7 +38,7 @@ def draw_spectrum(plt: Any, result: Result, system: str) -> None:
     series = result.series
     if "frequency" not in series:
         return
-    factor, _ = _signal_scale(result, system)
+    factor, unit = _signal_scale(result, system)
     frequency, amplitude = series["frequency"], series["amplitude_spectrum"] * factor
     floor = float(np.max(amplitude)) * 1e-4
     plt.plot(frequency, np.maximum(amplitude, floor), marker="braille")
@@ -49,8 +50,9 @@ def draw_spectrum(plt: Any, result: Result, system: str) -> None:
     if f is not None:
         plt.scatter([f], [float(np.interp(f, frequency, amplitude))], marker="o")
     band = f" {edges[0]:.2f}-{edges[1]:.2f} Hz" if len(edges) == 2 else ""
-    plt.title(f"peak o, half-power |{band}")  # short: plotext drops a title wider than the chart at 80x24
+    plt.title(f"Spectrum: peak o, half-power |{band}")  # short: plotext drops a title wider than the chart
     plt.xlabel("frequency (Hz)")
+    plt.ylabel(f"amplitude ({unit or 'as recorded'})")
 
 
 PANELS = (draw_record, draw_spectrum)

@@ -20,8 +20,9 @@ def draw_spectrum(plt: Any, result: Result, system: str) -> None:
     marked = result.number("spectral_acceleration")
     at = result.inputs["period"].value if "period" in result.inputs else None
     mark_period(plt, at, None if marked is None else marked * scale)
-    plt.title(f"EN 1998-1 spectrum ({unit})")
+    plt.title("EN 1998-1 spectrum, X period")
     plt.xlabel("T (s)")
+    plt.ylabel(f"Se ({unit})")
 
 
 PANELS = (draw_spectrum,)

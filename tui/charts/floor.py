@@ -36,7 +36,7 @@ def draw_by_pace(plt: Any, result: Result, system: str) -> None:
         plt.xlim(float(pace[0]), float(pace[-1]))
     plt.title(f"Response factor by pace, limit {limit:g}")
     plt.xlabel("pacing rate (Hz)")
-    plt.ylabel("R")
+    plt.ylabel("R (-)")
 
 
 def draw_by_frequency(plt: Any, result: Result, system: str) -> None:
@@ -55,7 +55,7 @@ def draw_by_frequency(plt: Any, result: Result, system: str) -> None:
     plt.xlim(0.0, float(frequency[-1]))
     plt.title(f"R by floor frequency, {OPERATING_MARKER} this floor")
     plt.xlabel("floor frequency (Hz)")
-    plt.ylabel("R")
+    plt.ylabel("R (-)")
 
 
 PANELS = (draw_by_pace, draw_by_frequency)

@@ -21,6 +21,8 @@ def _draw(plt: Any, result: Result, system: str, direction: str) -> None:
     name = f"{direction}_by_density"
     if name not in result.series:
         plt.title(f"No {direction} frequency given")
+        plt.xlabel(f"crowd density ({axis_scale('crowd_density', system, 1.0)[1]})")
+        plt.ylabel(f"a ({axis_scale('acceleration', system, 1.0)[1]})")
         return
     density = np.asarray(result.series["density_grid"])
     acceleration = np.asarray(result.series[name])
@@ -43,6 +45,7 @@ def _draw(plt: Any, result: Result, system: str, direction: str) -> None:
     shown = "" if direction == "vertical" else ", | lock-in"
     plt.title(f"{direction.capitalize()} a ({y_unit}), {OPERATING_MARKER} crowd{shown}")
     plt.xlabel(f"crowd density ({x_unit})")
+    plt.ylabel(f"a ({y_unit})")
 
 
 def draw_vertical(plt: Any, result: Result, system: str) -> None:

@@ -36,8 +36,9 @@ def _draw(plt: Any, result: Result, direction: str, frequencies_name: str) -> No
     plt.ylim(0.5, top + 0.5)
     plt.yticks(list(rows.values()), list(rows))
     shown = ", ".join(f"{f:.3g}" for f in frequencies) or "none"
-    plt.title(f"{direction.capitalize()} bands, structure # ({shown} Hz)")
-    plt.xlabel("frequency Hz")
+    plt.title(f"{direction.capitalize()} bands, # {shown} Hz")
+    plt.xlabel("frequency (Hz)")
+    plt.ylabel("activity/guide")
 
 
 def draw_vertical(plt: Any, result: Result, system: str) -> None:

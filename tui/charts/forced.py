@@ -23,8 +23,9 @@ def draw_amplification(plt: Any, result: Result, system: str) -> None:
     plt.scatter([result.number("frequency_ratio")], [result.number("amplification")], marker=OPERATING_MARKER)
     plt.yscale("log")
     plt.xlim(0.0, ratio[-1])
-    plt.title(f"Amplification R_d ({OPERATING_MARKER} = operating, lines = +/-20 %)")
-    plt.xlabel("r = f/fn")
+    plt.title(f"Amplification R_d, {OPERATING_MARKER} operating, | +/-20 %")
+    plt.xlabel("r = f/fn (-)")
+    plt.ylabel("R_d (-)")
 
 
 def draw_phase(plt: Any, result: Result, system: str) -> None:
@@ -36,8 +37,9 @@ def draw_phase(plt: Any, result: Result, system: str) -> None:
     plt.xlim(0.0, ratio[-1])
     plt.ylim(0.0, 180.0)
     plt.yticks([0, 45, 90, 135, 180])
-    plt.title(f"Phase lag, deg ({OPERATING_MARKER} = operating)")
-    plt.xlabel("r = f/fn")
+    plt.title(f"Phase lag, deg: {OPERATING_MARKER} operating")
+    plt.xlabel("r = f/fn (-)")
+    plt.ylabel("phase (deg)")
 
 
 PANELS = (draw_amplification, draw_phase)

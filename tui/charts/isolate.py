@@ -18,8 +18,9 @@ def draw_transmissibility(plt: Any, result: Result, system: str) -> None:
     plt.scatter([result.number("frequency_ratio")], [result.number("transmissibility")], marker=OPERATING_MARKER)
     plt.yscale("log")
     plt.xlim(0.0, ratio[-1])
-    plt.title(f"Transmissibility T ({OPERATING_MARKER} = operating; T = 1, r = 1.41)")
-    plt.xlabel("r = f/fn")
+    plt.title(f"Transmissibility T, {OPERATING_MARKER} operating, | r = 1.41")
+    plt.xlabel("r = f/fn (-)")
+    plt.ylabel("T (-)")
 
 
 PANELS = (draw_transmissibility,)

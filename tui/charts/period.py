@@ -19,8 +19,9 @@ def draw_period(plt: Any, result: Result, system: str) -> None:
     if h is not None and en is not None and asce is not None:
         plt.vline(h * factor)
         plt.scatter([h * factor, h * factor], [en, asce], marker=OPERATING_MARKER)
-    plt.title("period T (s)")
+    plt.title(f"Approximate period, {OPERATING_MARKER} building")
     plt.xlabel(f"height ({unit})")
+    plt.ylabel("T (s)")
 
 
 PANELS = (draw_period,)

@@ -9,7 +9,7 @@ import numpy as np
 
 from fieldmode.calc.framework.result import Result
 from fieldmode.calc.physics.vibration_limits import HUMAN_LEVELS
-from fieldmode.tui.charts.common import LINE_MARKER, axis_scale, downsample
+from fieldmode.tui.charts.common import LINE_MARKER, axis_scale, downsample, log_ticks, tick_labels
 
 AXIS_MARKERS = ("x", "o", "+")
 """Marker of axis 1, 2 and 3 (letters and signs: they read without colour)."""
@@ -39,22 +39,20 @@ def draw_guideline(plt: Any, result: Result, system: str) -> None:
     plt.xscale("log")
     plt.yscale("log")
     f_values = [low, high, *(float(frequency[k]) for k in shown)]
-    _log_ticks(plt.xticks, min(f_values), max(f_values))
+    _log_axis(plt.xticks, f_values)
     levels = list(limit * scale) if limit is not None else [level.level * scale for level in HUMAN_LEVELS]
     v_values = [*levels, *(float(ppv[k] * scale) for k in shown)]
-    _log_ticks(plt.yticks, min(v_values), max(v_values))
-    plt.title(f"PPV ({unit}) by axis {' '.join(AXIS_MARKERS[:len(ppv)])}; {line}")
+    _log_axis(plt.yticks, v_values)
+    plt.title(f"PPV by axis {' '.join(AXIS_MARKERS[:len(ppv)])} on the {line}")
     plt.xlabel("frequency at the peak (Hz)")
+    plt.ylabel(f"PPV ({unit})")
 
 
-def _log_ticks(set_ticks: Any, low: float, high: float) -> None:
-    """Ticks at 1, 2 and 5 times the powers of ten between ``low`` and ``high`` (at least two)."""
-    if not 0 < low < high:
-        return
-    decades = range(int(np.floor(np.log10(low))), int(np.ceil(np.log10(high))) + 1)
-    ticks = [m * 10.0**d for d in decades for m in (1, 2, 5) if low * 0.999 <= m * 10.0**d <= high * 1.001]
+def _log_axis(set_ticks: Any, values: list[float]) -> None:
+    """1-2-5 ticks over the values drawn on a log axis."""
+    ticks = log_ticks(min(values), max(values))
     if len(ticks) >= 2:
-        set_ticks(ticks, [f"{t:g}" for t in ticks])
+        set_ticks(ticks, tick_labels(ticks))
 
 
 def draw_history(plt: Any, result: Result, system: str) -> None:
@@ -69,8 +67,9 @@ def draw_history(plt: Any, result: Result, system: str) -> None:
     for k, (at, velocity) in enumerate(zip(series["peak_time"], axes, strict=False)):
         signed = float(np.interp(at, time, velocity))
         plt.scatter([float(at)], [signed * scale], marker=AXIS_MARKERS[k])
-    plt.title(f"velocity ({unit}), peaks {' '.join(AXIS_MARKERS[:len(axes)])}")
+    plt.title(f"Velocity by axis, peaks {' '.join(AXIS_MARKERS[:len(axes)])}")
     plt.xlabel("time (s)")
+    plt.ylabel(f"v ({unit})")
 
 
 PANELS = (draw_guideline, draw_history)

@@ -23,14 +23,17 @@ def draw_psa(plt: Any, result: Result, system: str) -> None:
     if at is not None and period[0] <= at <= period[-1]:
         mark_period(plt, at, None if psa is None else psa * scale)
     log_period_axis(plt, float(period[0]), float(period[-1]))
-    plt.title(f"psa ({unit})")
+    plt.title("psa, EN 1998-1 dotted, X period")
+    plt.ylabel(f"psa ({unit})")
 
 
 def draw_history(plt: Any, result: Result, system: str) -> None:
     """Relative displacement of the single mass with the marked period against time."""
     time = result.series["time"]
+    plt.xlabel("t (s)")
     if "response_displacement" not in result.series:
-        plt.title("no period marked: give one for its time history")
+        plt.title("No period marked: give one")
+        plt.ylabel(f"u ({axis_scale('length', system, 0.01)[1]})")
         return
     displacement = result.series["response_displacement"]
     factor, unit = axis_scale("length", system, displacement)
@@ -40,8 +43,8 @@ def draw_history(plt: Any, result: Result, system: str) -> None:
     if peak is not None:
         plt.hline(peak * factor)
         plt.hline(-peak * factor)
-    plt.title(f"u at T ({unit}), +-sd")
-    plt.xlabel("t (s)")
+    plt.title("Response at the marked T, lines +-sd")
+    plt.ylabel(f"u ({unit})")
 
 
 def draw_record(plt: Any, result: Result, system: str) -> None:
@@ -50,8 +53,9 @@ def draw_record(plt: Any, result: Result, system: str) -> None:
     scale, unit = axis_scale("acceleration", system, acceleration)
     x, y = downsample(result.series["time"], acceleration * scale)
     plt.plot(x, y, marker=LINE_MARKER)
-    plt.title(f"ground acceleration ({unit})")
+    plt.title("Ground acceleration, corrected")
     plt.xlabel("t (s)")
+    plt.ylabel(f"ag ({unit})")
 
 
 PANELS = (draw_psa, draw_history, draw_record)

@@ -16,17 +16,17 @@ def draw_mode_shapes(plt: Any, result: Result, system: str) -> None:
     if "height" in result.series:
         factor, unit = axis_scale("length", system, result.series["height"])
         level = result.series["height"] * factor
-        plt.ylabel(f"height {unit}")
+        plt.ylabel(f"height ({unit})")
     else:
         level = result.series["storey"]
-        plt.ylabel("floor")
+        plt.ylabel("floor (no.)")
     plt.vline(0.0)
     for n, marker in enumerate(MARKERS, start=1):
         shape = result.series.get(f"mode_{n}")
         if shape is not None:
             plt.plot(list(shape), list(level), marker=marker)
     plt.title("Mode shapes: 1 o, 2 x, 3 +")
-    plt.xlabel("shape (roof = 1)")
+    plt.xlabel("shape, roof = 1 (-)")
 
 
 PANELS = (draw_mode_shapes,)

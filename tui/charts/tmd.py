@@ -16,15 +16,15 @@ def _axes(plt: Any, result: Result, title: str) -> tuple[list[float], float]:
     ratio = result.series["frequency_ratio"]
     top = CLIP * float(np.max(result.series["amplification"]))
     plt.title(title)
-    plt.xlabel("forcing / mode frequency")
-    plt.ylabel("amplification")
+    plt.xlabel("f / f mode (-)")
+    plt.ylabel("A (-)")
     plt.vline(1.0)
     return list(ratio), top
 
 
 def draw_response(plt: Any, result: Result, system: str) -> None:
     """Amplification of the structure without the damper (.) and with it (*)."""
-    ratio, top = _axes(plt, result, "Without damper . with damper *")
+    ratio, top = _axes(plt, result, "Amplification A: without . with *")
     without = np.minimum(result.series["amplification_without"], top)
     plt.plot(ratio, list(without), marker=".")
     plt.plot(ratio, list(result.series["amplification"]), marker="*")
@@ -33,7 +33,7 @@ def draw_response(plt: Any, result: Result, system: str) -> None:
 
 def draw_mistuning(plt: Any, result: Result, system: str) -> None:
     """Amplification with the damper tuned (*), 5 % low (-) and 5 % high (+)."""
-    ratio, _ = _axes(plt, result, "Damper tuned * 5 % low - 5 % high +")
+    ratio, _ = _axes(plt, result, "Damper tuned *, 5 % low -, 5 % high +")
     plt.plot(ratio, list(result.series["amplification_mistuned_low"]), marker="-")
     plt.plot(ratio, list(result.series["amplification_mistuned_high"]), marker="+")
     plt.plot(ratio, list(result.series["amplification"]), marker="*")

@@ -29,6 +29,8 @@ THROTTLE = 0.15
 """Seconds: a keystroke after a quiet spell computes at once; further ones within this wait for its end."""
 MOST_ITEMS = 6
 """A list result shows at most this many values in the results table (all in the calc record)."""
+ALTERNATIVE_KEY = "ctrl+t"
+"""The key that shows a field's next alternative (the app binds it)."""
 
 
 class CheckView(Vertical):
@@ -75,7 +77,7 @@ class CheckView(Vertical):
     def up_to_date(self) -> bool:
         """True when the outcome on screen is that of the texts and unit system as they are now."""
         return (not self._pending and self.outcome is not None
-                and self.outcome.texts == self.workspace.texts[self.spec.id]
+                and self.outcome.texts == self.workspace.used_texts(self.spec.id)
                 and self.outcome.system == self.workspace.system)
 
     def compose(self) -> ComposeResult:
@@ -88,6 +90,7 @@ class CheckView(Vertical):
             with self._right, self._results_box:
                 yield self._table
         yield self._flags
+        self._arrange()
 
     def on_mount(self) -> None:
         self._table.show_problem("computing...")
@@ -105,7 +108,45 @@ class CheckView(Vertical):
         return next((row for row in self._rows.values() if focused is row.input), None)
 
     def focus_first(self) -> None:
-        self.rows()[0].input.focus()
+        next(row for row in self.rows() if row.display).input.focus()
+
+    def _arrange(self) -> None:
+        """Show the rows of the fields in use (hidden rows keep their texts and take no focus); name each
+        shown alternative's others under its label."""
+        hidden = self.workspace.hidden(self.spec.id)
+        texts = self.workspace.texts[self.spec.id]
+        key = "Ctrl+" + ALTERNATIVE_KEY.split("+")[1].upper()
+        for name, row in self._rows.items():
+            if row.display != (name not in hidden):
+                row.display = name not in hidden
+            others = [self.spec.field(other) for other in self.workspace.alternatives(self.spec.id, name)
+                      if other != name]
+            words = [f.label + (f" ({texts[f.name].strip()})" if texts.get(f.name, "").strip() else "")
+                     for f in others]
+            row.show_alternative(f"or {' / '.join(words)}: {key}" if words and row.display else "")
+        focused = self.focused_row()
+        if focused is not None and not focused.display:
+            self._shown_row(focused.field.name).input.focus()
+
+    def _shown_row(self, name: str) -> FieldRow:
+        """The row shown for field ``name``: its own, the shown alternative of its group, or the first shown."""
+        row = self._rows[name]
+        if row.display:
+            return row
+        group = self.spec.field(name).group
+        shown = [other for other in self.rows() if other.display]
+        return next((other for other in shown if group and other.field.group == group), shown[0])
+
+    def switch_alternative(self) -> str | None:
+        """Show the next alternative of the field in focus and move to it; its label, or None if it has none."""
+        row = self.focused_row()
+        following = self.workspace.switch_alternative(self.spec.id, row.field.name) if row else None
+        if following is None:
+            return None
+        self._arrange()
+        self._rows[following].input.focus()
+        self.request_compute()
+        return self.spec.field(following).label
 
     def on_input_changed(self, event: Input.Changed) -> None:
         event.stop()  # handled as it happened, in _edited
@@ -115,6 +156,7 @@ class CheckView(Vertical):
         if text == self.workspace.texts[self.spec.id].get(name, ""):
             return  # the box was filled from the session, not typed
         shared = self.workspace.set_text(self.spec.id, name, text)
+        self._arrange()
         self.post_message(self.Edited(self.spec.id, shared))
         self.request_compute()
 
@@ -127,13 +169,14 @@ class CheckView(Vertical):
         texts = self.workspace.texts[self.spec.id]
         for row in self.rows():
             row.set_text(texts.get(row.field.name, ""))
+        self._arrange()
         self.request_compute()
 
     def request_compute(self) -> None:
         """Compute now if quiet, else once at the end of the current throttle window."""
         self.stale = False
         if self._timer is None:
-            self._compute(dict(self.workspace.texts[self.spec.id]), self.workspace.system)
+            self._compute(self.workspace.used_texts(self.spec.id), self.workspace.system)
             self._timer = self.set_timer(THROTTLE, self._window_closed)
         else:
             self._pending = True
@@ -163,15 +206,16 @@ class CheckView(Vertical):
         from fieldmode.tui.present import value_lines  # loaded by the compute worker already
 
         self.outcome = outcome
+        errors = {self._shown_row(name).field.name: error for name, error in outcome.errors.items()}
         for name, row in self._rows.items():
-            row.show(self._note(name, outcome), outcome.errors.get(name, ""))
+            row.show(self._note(name, outcome), errors.get(name, ""))
         result = outcome.result
         if result is not None:
             self._table.show_rows([(value.label, "\n".join(value_lines(value, outcome.system, MOST_ITEMS)))
                                    for value in result.values.values()])
             self._flags.show_flags(result.flags)
         else:
-            bad = [self.spec.field(name).label for name in outcome.errors]
+            bad = [self.spec.field(name).label for name in errors]
             self._table.show_problem(outcome.problem or "Fix the field marked ! : " + ", ".join(bad))
             self._flags.show_flags(())
 
@@ -179,9 +223,9 @@ class CheckView(Vertical):
         note = outcome.notes.get(name, "")
         spec_field = self.spec.field(name)
         if not note and not self.workspace.texts[self.spec.id].get(name, "").strip():
-            others = [f.label for f in self.spec.fields
-                      if f.group and f.group == spec_field.group and f is not spec_field]
-            note = ("or " + " / ".join(others)) if others else ("optional" if not spec_field.required else "")
+            # a field with alternatives in use is not optional: they are named under its label
+            alone = len(self.workspace.alternatives(self.spec.id, name)) < 2
+            note = "optional" if not spec_field.required and alone else ""
         partners = self.workspace.partners(self.spec.id, name)
         if partners and name in self.workspace.own[self.spec.id]:
             note += f"; its own value here (Ctrl+O: the same as in {', '.join(partners)})"

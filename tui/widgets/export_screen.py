@@ -62,7 +62,7 @@ class ExportScreen(Dialog[str | None]):
                 yield Static(_label(PATH_LABEL, False), classes="record-label", id="label-path")
                 yield OrderedInput(self.names["check"], id="record-path", compact=True)
             yield Static(Text("  a .json file with every value in SI is written beside it"), classes="dialog-note")
-            with RadioSet(id="record-scope", compact=True):
+            with ScopeSet(id="record-scope", compact=True):
                 yield ScopeButton("this check", value=True, id="scope-check")
                 yield ScopeButton("whole session", id="scope-session")
             yield Static("", id="record-problem", markup=False)
@@ -108,7 +108,8 @@ class ExportScreen(Dialog[str | None]):
         existing = [p for p in record_paths(path) if p.exists()]
         if existing:
             names = " and ".join(str(p) for p in existing)
-            self.app.push_screen(ConfirmScreen(f"{names} already exists. Replace?"),
+            verb = "exist" if len(existing) > 1 else "exists"
+            self.app.push_screen(ConfirmScreen(f"{names} already {verb}. Replace?"),
                                  lambda yes: self._write(path) if yes else self._problem("not written: file kept"))
         else:
             self._write(path)
@@ -127,6 +128,17 @@ class ExportScreen(Dialog[str | None]):
 
 def _label(label: str, focused: bool) -> Text:
     return Text(("> " if focused else "  ") + label + ":", style="bold" if focused else "")
+
+
+class ScopeSet(RadioSet):
+    """The scope choice: arrows move the cursor, Space picks, Enter picks and moves on to the file name,
+    so a second Enter writes the record."""
+
+    BINDINGS = [Binding("enter", "pick_and_move_on", "pick and go to the file name", show=False)]
+
+    def action_pick_and_move_on(self) -> None:
+        self.action_toggle_button()
+        self.screen.query_one("#record-path", Input).focus()
 
 
 class ScopeButton(RadioButton):

@@ -85,6 +85,8 @@ class FieldRow(Widget):
         """What is wrong with the text ('' when it was read)."""
         self.notes_shown = True
         """False in chart view, where the pane is too narrow for the readings."""
+        self.alternative = ""
+        """The line under the label naming the alternatives not shown and the key that switches ('' none)."""
         self._focused = False
         self._shape: tuple[int, int] | None = None
         self._cut_shown = 0
@@ -115,10 +117,15 @@ class FieldRow(Widget):
         errors = textwrap.wrap("! " + printable(self.error), max(8, width - INDENT)) if self.error else []
         return labels, notes, errors
 
+    def _alternative_lines(self, width: int) -> list[str]:
+        return textwrap.wrap(printable(self.alternative), max(8, width - INDENT)) if self.alternative else []
+
     def _fit(self) -> None:
         """Put the box below the label and make the row as tall as what it shows (a layout pass only
         when either changes)."""
-        labels, notes, errors = self._lines(self.size.width or DEFAULT_WIDTH)
+        width = self.size.width or DEFAULT_WIDTH
+        labels, notes, errors = self._lines(width)
+        labels = labels + self._alternative_lines(width)
         shape = (len(labels), len(labels) + len(notes) + len(errors))
         if shape != self._shape:
             self._shape = shape
@@ -130,11 +137,14 @@ class FieldRow(Widget):
 
     def render(self) -> Text:
         """Label (marked '>' in focus), the reading beside the box, the error below."""
-        labels, notes, errors = self._lines(self.size.width or DEFAULT_WIDTH)
+        width = self.size.width or DEFAULT_WIDTH
+        labels, notes, errors = self._lines(width)
         text = Text(no_wrap=True, overflow="crop")
         for index, line in enumerate(labels):
             marker = "> " if self._focused and index == 0 else "  "
             text.append(marker + line + "\n", style="bold")
+        for line in self._alternative_lines(width):
+            text.append(" " * INDENT + line + "\n", style="dim")
         column = " " * (INDENT + self._box_width + 1)
         for line in notes:
             text.append(column + line + "\n", style="dim" if not self.error else "")
@@ -159,6 +169,13 @@ class FieldRow(Widget):
         self.set_class(bool(error), "-error")
         self._fit()
         self.refresh()
+
+    def show_alternative(self, text: str) -> None:
+        """Name the alternatives not shown under the label ('' for none)."""
+        if text != self.alternative:
+            self.alternative = text
+            self._fit()
+            self.refresh()
 
     def show_notes(self, shown: bool) -> None:
         """Show the readings beside the boxes (results view) or not (chart view, a narrower pane)."""

@@ -26,7 +26,7 @@ def test_every_damping_field_is_found() -> None:
         "sdof.damping", "forced.damping", "isolate.damping", "design-spectrum.damping", "spectrum.damping",
         "storeys.damping", "tmd.damping", "floor.damping", "footbridge.damping"}
     assert {_name(pair) for pair in OTHER_RATIO_FIELDS} == {
-        "isolate.target_isolation", "tmd.mass_ratio", "tmd.target_damping"}
+        "isolate.target_isolation", "tmd.mass_ratio", "tmd.target_damping", "ppv-distance.probability"}
 
 
 def _same(left: object, right: object) -> bool:

@@ -6,8 +6,8 @@ from helpers.charts import draw_panels
 
 
 def test_title_names_the_code_and_the_unit() -> None:
-    assert "EN 1998-1 spectrum (m/s^2)" in draw_panels("design-spectrum")[0]
-    assert "EN 1998-1 spectrum (g)" in draw_panels("design-spectrum", system="us")[0]
+    assert "Se (m/s^2)" in draw_panels("design-spectrum")[0]
+    assert "Se (g)" in draw_panels("design-spectrum", system="us")[0]
 
 
 def test_draws_without_the_design_spectrum() -> None:

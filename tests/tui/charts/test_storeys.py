@@ -11,5 +11,5 @@ def test_chart_markers_tell_curves_apart_without_colour() -> None:
 
 
 def test_height_axis_or_floor_numbers() -> None:
-    assert "height m" in draw_panels("storeys")[0]
+    assert "height (m)" in draw_panels("storeys")[0]
     assert "floor" in draw_panels("storeys", {"heights": ""})[0]

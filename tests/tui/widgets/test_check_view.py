@@ -6,7 +6,7 @@ import asyncio
 import math
 
 import pytest
-from helpers.pilot import flags_text, note_of, screen_text, settle, type_into
+from helpers.pilot import flags_text, focus_field, note_of, reveal, screen_text, settle, type_into
 
 from fieldmode.calc.checks import SPECS
 
@@ -52,13 +52,19 @@ def test_bad_text_in_any_field_shows_inline_and_the_app_carries_on(make_app, spe
             while app.current_view.spec.id != spec.id:
                 await pilot.press("f3")
             await settle(app, pilot)
+            shown = dict(app.workspace.shown[spec.id])
             for spec_field in spec.fields:
+                choices = await reveal(app, pilot, spec_field.name)  # a field the demo's choices do not use
                 view = await type_into(app, pilot, spec_field.name, "x!")
                 outcome = view.outcome
                 assert spec_field.name in outcome.errors or outcome.problem, (spec_field.name, outcome)
                 assert outcome.result is None
                 assert "No result" in screen_text(app)
                 view.type_text(spec_field.name, spec_field.default)  # put the demo text back, as a paste would
+                for choice, text in choices.items():
+                    view.type_text(choice, text)
+                for name in shown.values():  # the demo's alternatives again (Ctrl+T)
+                    await focus_field(app, pilot, name)
                 view = await settle(app, pilot)
                 assert view.outcome.result is not None, (spec_field.name, view.outcome.errors)
 

@@ -8,7 +8,7 @@ from helpers.pilot import focus_field, settle
 from textual import events
 
 from fieldmode.calc.checks import SPECS
-from fieldmode.calc.typical_values import DAMPING
+from fieldmode.calc.typical_values import STRUCTURE_DAMPING
 
 SIZE = (80, 24)
 
@@ -52,7 +52,7 @@ def test_lookup_burst_fills_the_field(make_app):
             post_burst(app, ["f7", "down", "enter"])
             await wait_for_single_screen(app, pilot)
             view = await settle(app, pilot)
-            expected = DAMPING.rows[1].fill  # the row below the first: Down, then Enter
+            expected = STRUCTURE_DAMPING.rows[1].fill  # sdof: the row below the first: Down, then Enter
             assert view.row("damping").input.value == expected
             assert app.focused is view.row("damping").input
 

@@ -22,7 +22,7 @@ async def _export(app, pilot, path_text, session=False):
     await pilot.pause()
     assert isinstance(app.screen, ExportScreen)
     if session:
-        await pilot.press("tab", "down", "enter", "shift+tab")
+        await pilot.press("tab", "down", "enter")  # Enter picks the choice and moves on to the file name
     await pilot.press("home", "ctrl+k", *keys_for(path_text))
     await pilot.press("enter")
     await app.workers.wait_for_complete()
@@ -190,10 +190,14 @@ def test_project_boxes_are_marked_in_focus_without_colour(make_app):
             await pilot.pause()
             text = screen_text(app)
             assert "> Engineer:" in text and "  File (.md):" in text
-            await pilot.press("tab", "tab", "tab", "down", "enter")
+            await pilot.press("tab", "tab", "tab", "down")
             await pilot.pause()
             text = screen_text(app)
-            assert "( ) this check" in text and "> (*) whole session" in text
+            assert "  (*) this check" in text and "> ( ) whole session" in text  # cursor and choice differ
+            await pilot.press("enter")
+            await pilot.pause()
+            text = screen_text(app)
+            assert "( ) this check" in text and "  (*) whole session" in text and "> File (.md):" in text
             dialog = text.splitlines()[1:15]
             assert all(line.isascii() for line in dialog), dialog  # no box, block or radio-dot characters
 
@@ -268,3 +272,41 @@ def test_names_that_are_folders_are_refused_in_the_dialog(make_app, tmp_path, mo
     written = [path for path in tmp_path.rglob("*.md")] + [path for path in tmp_path.rglob("*.json")
                                                             if "state" not in path.parts]
     assert written == []
+
+
+def test_enter_on_the_scope_picks_it_and_moves_on_to_the_file_name(make_app, tmp_path):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await pilot.press("f9")
+            await pilot.pause()
+            await pilot.press("tab", "down", "enter")
+            await pilot.pause()
+            assert app.screen.focused is not None and app.screen.focused.id == "record-path"
+            assert app.screen.scope == "session"
+            await pilot.press("home", "ctrl+k", *keys_for(str(tmp_path / "walk")))
+            await pilot.press("enter")
+            await app.workers.wait_for_complete()
+            await pilot.pause()
+            assert not isinstance(app.screen, ExportScreen)
+            record = json.loads((tmp_path / "walk.json").read_text())
+            assert len(record["checks"]) > 1  # the whole session, not one check
+
+    asyncio.run(scenario())
+
+
+def test_a_typed_file_name_survives_changing_the_scope_both_ways(make_app, tmp_path):
+    async def scenario():
+        app = make_app()
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(app, pilot)
+            await pilot.press("f9")
+            await pilot.pause()
+            await pilot.press("home", "ctrl+k", *keys_for("site-walk"))
+            await pilot.press("tab", "down", "enter", "tab", "up", "enter")
+            await pilot.pause()
+            assert app.screen.scope == "check"
+            assert app.screen.query_one("#record-path").value == "site-walk"
+
+    asyncio.run(scenario())
