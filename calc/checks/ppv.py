@@ -407,7 +407,7 @@ SPEC = CheckSpec(
     fields=FIELDS,
     compute=compute,
     caution=CAUTION,
-    key_results=("verdict", "ratio", "vector_sum", "events", "human_level"),
+    key_results=("verdict", "ratio", "vector_sum", "events"),
     series=(
         Series("time", "Time", "time"),
         Series("axis_1", "Velocity, axis 1", "velocity", "time"),
