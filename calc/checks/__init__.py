@@ -19,7 +19,7 @@ if TYPE_CHECKING:
 
 CHECK_IDS: tuple[str, ...] = (
     "sdof", "member", "forced", "isolate", "decay", "decrement", "period", "design-spectrum", "spectrum",
-    "ppv-distance", "occupants", "machine",
+    "ppv", "ppv-distance", "occupants", "machine",
     "storeys", "tmd", "footfall", "floor", "footbridge",
 )
 """Every check id, in display order. Add a new check's id here."""

@@ -15,7 +15,9 @@ GROUND_MOTION = "ground_motion_demo.csv"
 """Demo accelerogram (calc/demo/ground_motion.py writes it)."""
 LIVELY_FLOOR = "lively_floor_demo.csv"
 """Demo acceleration record of a lively office floor (calc/demo/lively_floor.py writes it)."""
-DEMO_FILES = (HEEL_DROP, GROUND_MOTION, LIVELY_FLOOR)
+SHEET_PILING = "sheet_piling_demo.csv"
+"""Demo construction-vibration record (calc/demo/sheet_piling.py writes it)."""
+DEMO_FILES = (HEEL_DROP, GROUND_MOTION, LIVELY_FLOOR, SHEET_PILING)
 """Every shipped demo record."""
 PREFIX = "demo:"
 """A path typed as ``demo:NAME`` is the shipped demo record NAME."""

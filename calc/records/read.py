@@ -32,7 +32,7 @@ import os
 import re
 from collections import OrderedDict
 from collections.abc import Sequence
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 import numpy as np
 
@@ -114,8 +114,10 @@ def read_channels(path: str | os.PathLike[str], time_column: int | str | None = 
     if key[0] is not None and key in _kept:
         _kept.move_to_end(key)
         return _kept[key]
-    found = _read(source.read_source(path, MAX_FILE_BYTES), time_column, signal_columns, sample_rate, signal_unit,
-                  single)
+    origin = source.read_source(path, MAX_FILE_BYTES)
+    found = _read(origin, time_column, signal_columns, sample_rate, signal_unit, single)
+    del origin  # the file's bytes go before the signals are copied out of the table read: a long record
+    found = replace(found, signals=np.ascontiguousarray(found.signals))  # never holds all three at once
     if key[0] is not None and found.source.identity == key[0]:
         _kept[key] = found
         while len(_kept) > KEPT:
@@ -147,7 +149,9 @@ def _read(origin: Source, time_column: int | str | None, signal_columns: Sequenc
     else:
         scale, how = sampling.seconds_per_unit(names[time_index], layout.shown)
         notes += [how] if how else []
-        time, channels, fs = sampling.uniform(data, layout, values[:, 0] * scale, channels, notes)
+        stamps = values[:, 0] if scale == 1.0 else values[:, 0] * scale
+        time, channels, fs = sampling.uniform(data, layout, stamps, channels, notes)
+        del stamps
         if sample_rate is not None:
             sampling.agree(sample_rate, fs, layout.shown)
     kinds = []
@@ -156,8 +160,8 @@ def _read(origin: Source, time_column: int | str | None, signal_columns: Sequenc
         if factor != 1.0:
             channels[:, position] *= factor
         kinds.append(kind)
-    return Record(time, np.ascontiguousarray(channels), fs, tuple(dict.fromkeys(notes)),
-                  tuple(names[i] for i in signals), tuple(kinds), names, origin)
+    return Record(time, channels, fs, tuple(dict.fromkeys(notes)), tuple(names[i] for i in signals), tuple(kinds),
+                  names, origin.released())
 
 
 def _text(origin: Source) -> tuple[bytes, list[str]]:

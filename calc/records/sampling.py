@@ -75,14 +75,20 @@ def uniform(data: bytes, layout: Layout, time: np.ndarray, signals: np.ndarray,
         word = "duplicate time" if steps[row - 1] == 0 else "time goes back"
         raise RecordError(layout.shown, f"{word}: {time[row]:g} s after {time[row - 1]:g} s; "
                           "time must increase", table.line_of_row(data, layout, row))
-    median = float(np.median(steps))
+    shortest, longest = float(steps.min()), float(steps.max())
+    median = float(np.median(steps, overwrite_input=True))  # no copy of a long record's steps
+    del steps
     check_rate(1.0 / median, layout.shown, "the time column gives")
-    ratio = steps / median
-    low, high = float(ratio.min()), float(ratio.max())
+    low, high = shortest / median, longest / median
     if max(abs(low - 1), abs(high - 1)) <= UNIFORM_TOLERANCE:
         fs = (len(time) - 1) / float(time[-1] - time[0])
-        return time[0] + np.arange(len(time)) / fs, signals, fs
+        even = np.arange(len(time), dtype=float)
+        even /= fs
+        even += time[0]
+        return even, signals, fs
     if low < RESAMPLE_LIMITS[0] or high > RESAMPLE_LIMITS[1]:
+        steps = np.diff(time)
+        ratio = steps / median
         worst = int(np.argmax(np.abs(np.log(ratio)))) + 1
         raise RecordError(layout.shown, f"sampling too uneven: a step of {steps[worst - 1]:.4g} s is "
                           f"{ratio[worst - 1]:.2g} x the median step {median:.4g} s (resampling allowed "

@@ -13,7 +13,7 @@ import hashlib
 import os
 import stat
 import sys
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 from fieldmode.calc.demo import demo_path
 from fieldmode.calc.records.layout import RecordError
@@ -31,10 +31,16 @@ class Source:
     sha256: str
     identity: tuple[int, int, int, int] | None
     """(device, inode, size, modification time in ns) of a regular file; None for a pipe or standard input."""
+    size: int = -1
+    """Bytes read (the length of ``data`` unless given)."""
 
-    @property
-    def size(self) -> int:
-        return len(self.data)
+    def __post_init__(self) -> None:
+        if self.size < 0:
+            object.__setattr__(self, "size", len(self.data))
+
+    def released(self) -> Source:
+        """The same source without its bytes (size and SHA-256 kept), once they have been parsed."""
+        return replace(self, data=b"")
 
 
 def resolve(typed: str) -> str:

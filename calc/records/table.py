@@ -38,7 +38,8 @@ def load_columns(data: bytes, layout: Layout, used: list[int], max_rows: int) ->
         raise first_bad_line(data, layout, used) or RecordError(layout.shown, f"unreadable data ({error})") from error
     if len(table) > max_rows:
         raise RecordError(layout.shown, f"more than {max_rows:,} samples; shorten the record")
-    table = table[:, [order.index(i) for i in used]]
+    if used != order:
+        table = table[:, [order.index(i) for i in used]]  # a copy: only when the columns were asked out of order
     if not np.isfinite(table).all():
         raise first_bad_line(data, layout, used) or RecordError(layout.shown, "a value is not a finite number")
     return table

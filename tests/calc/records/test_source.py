@@ -132,3 +132,33 @@ def test_memory_stays_near_the_samples(tmp_path: Path) -> None:
     samples = record.signals.nbytes + record.time.nbytes
     # Common practice (no source): reading costs a few times the samples as float64, not tens of times
     assert peak < 3 * samples + 2 * path.stat().st_size
+
+
+def test_a_record_keeps_the_size_and_digest_of_its_bytes_but_not_the_bytes(tmp_path: Path) -> None:
+    path = tmp_path / "kept.csv"
+    path.write_text(CSV)
+    record = read_record(path)
+    # Oracle: hashlib.sha256 of the file's bytes and the file system's size
+    assert record.source.size == path.stat().st_size
+    assert record.source.sha256 == hashlib.sha256(path.read_bytes()).hexdigest()
+    # Common practice (no source): once parsed, a long record's text is not held beside its samples
+    assert record.source.data == b""
+
+
+def test_memory_peak_holds_the_text_and_the_table_but_no_copy_of_them(tmp_path: Path) -> None:
+    rows = 200_000
+    t = np.arange(rows) / 1000.0
+    path = tmp_path / "long.csv"
+    np.savetxt(path, np.column_stack([t, np.sin(t), np.cos(t), np.sin(2 * t)]), delimiter=",", fmt="%.6f",
+               header="time,x,y,z", comments="")
+    import tracemalloc
+
+    reader._kept.clear()
+    tracemalloc.start()
+    read_channels(path, signal_unit="m/s")
+    peak = tracemalloc.get_traced_memory()[1]
+    tracemalloc.stop()
+    table = rows * 4 * 8
+    # Common practice (no source): the text, the table numpy parses (with its growth margin) and one column of
+    # time steps; a copy of the table or of the signals beside the text would add another table's worth
+    assert peak < path.stat().st_size + 1.6 * table
