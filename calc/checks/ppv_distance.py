@@ -24,12 +24,10 @@ METHODS = (VIBRATORY, PERCUSSIVE, COMPACTION)
 PHASES = {"steady running": "steady", "start-up and run-down": "transient"}
 """Roller phase as shown -> the phase of :mod:`ppv_predict`."""
 
-USED = {
-    VIBRATORY: ("probability",),
-    PERCUSSIVE: ("energy", "ground"),
-    COMPACTION: ("probability", "amplitude", "drum_width", "drums", "phase"),
-}
-"""The method's own fields (besides method, distance and limit); the others are ignored."""
+VIBRATORY_METHODS = {"method": (VIBRATORY, COMPACTION)}
+PERCUSSIVE_ONLY = {"method": (PERCUSSIVE,)}
+COMPACTION_ONLY = {"method": (COMPACTION,)}
+"""Which methods use a field (the app shows it only for them; the command line notes it as ignored)."""
 
 PPV_CAUTION = ("Screening prediction, not a design: guideline values are screening references; building "
                "condition, local rules and a licensed engineer govern.")
@@ -41,17 +39,19 @@ FIELDS = (
           help="horizontal distance; for percussive piling the slope distance from the pile toe"),
     Field("limit", "Limit PPV", "velocity", "5 mm/s", "mm/s", required=False,
           help="gives the distance beyond which the predicted PPV is below it"),
-    Field("probability", "Chance of exceedance", "ratio", "5 %", "", required=False,
+    Field("probability", "Chance of exceedance", "ratio", "5 %", "", required=False, used_when=VIBRATORY_METHODS,
           help="50 %, 33.3 % or 5 %: the chance the predicted value is exceeded (vibratory methods)"),
-    Field("energy", "Hammer energy per blow", "energy", "", "kJ", required=False,
+    Field("energy", "Hammer energy per blow", "energy", "", "kJ", required=False, used_when=PERCUSSIVE_ONLY,
           help="percussive piling: rated energy of one blow"),
     Field("ground", "Ground at the pile toe", "choice", "", choices=tuple(ppv_predict.PERCUSSIVE_K),
-          required=False, help="percussive piling: sets the factor k_p"),
-    Field("amplitude", "Drum amplitude, nominal", "length", "", "mm", required=False,
+          required=False, used_when=PERCUSSIVE_ONLY, help="percussive piling: sets the factor k_p"),
+    Field("amplitude", "Drum amplitude, nominal", "length", "", "mm", required=False, used_when=COMPACTION_ONLY,
           help="vibratory compaction: the roller's nominal amplitude"),
-    Field("drum_width", "Drum width", "length", "", "m", required=False, help="vibratory compaction"),
-    Field("drums", "Vibrating drums", "count", "", "", required=False, help="vibratory compaction: 1 or 2 (default 1)"),
-    Field("phase", "Roller phase", "choice", "", choices=tuple(PHASES), required=False,
+    Field("drum_width", "Drum width", "length", "", "m", required=False, used_when=COMPACTION_ONLY,
+          help="vibratory compaction"),
+    Field("drums", "Vibrating drums", "count", "", "", required=False, used_when=COMPACTION_ONLY,
+          help="vibratory compaction: 1 or 2 (default 1)"),
+    Field("phase", "Roller phase", "choice", "", choices=tuple(PHASES), required=False, used_when=COMPACTION_ONLY,
           help="vibratory compaction: steady running (default) or start-up and run-down"),
 )
 
@@ -172,10 +172,6 @@ def _probability(inputs: Inputs) -> float:
 def _notes(inputs: Inputs, method: str) -> list[Flag]:
     flags = [Flag("caution", "the constants, exponents and ranges of BS 5228-2 Annex E Table E.1 are from "
                              "memory, not confirmed against a copy: check them before relying on the figures")]
-    ignored = [inputs.spec.field(f.name).label.lower() for f in inputs.spec.fields
-               if f.name not in ("method", "distance", "limit") and f.name not in USED[method] and inputs.has(f.name)]
-    if ignored:
-        flags.append(Flag("info", f"not used by {method}, ignored: {', '.join(ignored)}"))
     if method == PERCUSSIVE:
         flags.append(Flag("info", "percussive piling: the distance is the slope distance from the pile toe; "
                                   "no chance of exceedance is attached to this formula"))
