@@ -28,6 +28,15 @@ def demo_file(name: str) -> Path:
     return Path(str(files("fieldmode.calc.demo").joinpath("data", name)))
 
 
+def write_demo(name: str, text: str) -> int:
+    """Write a generated demo record ``name`` into the package's data folder (a generator's ``main``)."""
+    path = Path(__file__).resolve().parent / "data" / name
+    path.parent.mkdir(exist_ok=True)
+    path.write_text(text, encoding="utf-8")
+    print(f"wrote {path}")
+    return 0
+
+
 def demo_name(name: str) -> str:
     """The short name a field shows for the shipped demo file ``name``, e.g. 'demo:heel_drop_demo.csv'."""
     return PREFIX + name

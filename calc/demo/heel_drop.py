@@ -14,11 +14,10 @@ from __future__ import annotations
 import math
 import sys
 from dataclasses import dataclass
-from pathlib import Path
 
 import numpy as np
 
-from fieldmode.calc.demo import HEEL_DROP
+from fieldmode.calc.demo import HEEL_DROP, write_demo
 
 
 @dataclass(frozen=True)
@@ -86,14 +85,5 @@ def demo_text(params: HeelDrop = HeelDrop()) -> str:
     return "\n".join(lines) + "\n"
 
 
-def main() -> int:
-    """Write the demo record into the package's data folder."""
-    path = Path(__file__).resolve().parent / "data" / HEEL_DROP
-    path.parent.mkdir(exist_ok=True)
-    path.write_text(demo_text(), encoding="utf-8")
-    print(f"wrote {path}")
-    return 0
-
-
 if __name__ == "__main__":
-    sys.exit(main())
+    sys.exit(write_demo(HEEL_DROP, demo_text()))

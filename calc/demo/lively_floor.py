@@ -18,11 +18,10 @@ from __future__ import annotations
 import math
 import sys
 from dataclasses import dataclass
-from pathlib import Path
 
 import numpy as np
 
-from fieldmode.calc.demo import LIVELY_FLOOR
+from fieldmode.calc.demo import LIVELY_FLOOR, write_demo
 
 STANDARD_GRAVITY = 9.80665
 """m/s^2 in one g; the file is written in milli-g."""
@@ -109,14 +108,5 @@ def demo_text(params: LivelyFloor = LivelyFloor()) -> str:
     return "\n".join(lines) + "\n"
 
 
-def main() -> int:
-    """Write the demo record into the package's data folder."""
-    path = Path(__file__).resolve().parent / "data" / LIVELY_FLOOR
-    path.parent.mkdir(exist_ok=True)
-    path.write_text(demo_text(), encoding="utf-8")
-    print(f"wrote {path}")
-    return 0
-
-
 if __name__ == "__main__":
-    sys.exit(main())
+    sys.exit(write_demo(LIVELY_FLOOR, demo_text()))
