@@ -220,8 +220,11 @@ def test_ctrl_c_stops_every_worker_and_exits_130(tmp_path: Path) -> None:
     for index in range(1, 40):
         shutil.copyfile(site / "r00.csv", site / f"r{index:02d}.csv")
     script = Path(sys.executable).parent / "fieldmode"
+    # Ctrl+C as at a terminal: a test run started in the background (a CI job) inherits SIGINT ignored, and a
+    # Python started with SIGINT ignored keeps ignoring it
     process = subprocess.Popen([str(script), "decay", str(site), "--json"], stdout=subprocess.PIPE,
-                               stderr=subprocess.PIPE, text=True, start_new_session=True)
+                               stderr=subprocess.PIPE, text=True, start_new_session=True,
+                               preexec_fn=lambda: signal.signal(signal.SIGINT, signal.SIG_DFL))
     assert process.stdout is not None
     first = process.stdout.readline()  # the first record is done: workers are busy with the next
     assert json.loads(first)["check"] == "decay"
