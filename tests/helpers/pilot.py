@@ -44,6 +44,17 @@ async def focus_field(app: FieldmodeApp, pilot: Pilot, name: str) -> Input:
     raise AssertionError(f"Tab never reached {name}")
 
 
+async def jump_to(app: FieldmodeApp, pilot: Pilot, name: str) -> Input:
+    """Put the focus on a field's row at once (Ctrl+T for an alternative not shown): for tests whose subject
+    is what is typed, not how Tab moves (tests/tui/test_layout.py tabs through every field)."""
+    view = app.current_view
+    alternatives = app.workspace.alternatives(view.spec.id, name)
+    shown = next((view.row(other).input for other in alternatives if view.row(other).display), None)
+    (shown or view.row(name).input).focus()
+    await pilot.pause()
+    return await focus_field(app, pilot, name)
+
+
 async def type_into(app: FieldmodeApp, pilot: Pilot, name: str, text: str) -> CheckView:
     """Clear a field and type ``text`` key by key; wait for the results."""
     await focus_field(app, pilot, name)
