@@ -52,9 +52,9 @@ def compute(inputs: Inputs) -> Result:
         if len(edges) != 2 or edges[0] >= edges[1]:
             raise inputs.error("band", "give two frequencies, the low edge first")
         band = (float(edges[0]), float(edges[1]))
-    record = read_record(path, time_column=_optional_text(inputs, "time_column"),
-                         signal_column=_optional_text(inputs, "signal_column"), sample_rate=rate,
-                         signal_unit=_optional_text(inputs, "signal_unit"))
+    record = read_record(path, time_column=inputs.optional_text("time_column"),
+                         signal_column=inputs.optional_text("signal_column"), sample_rate=rate,
+                         signal_unit=inputs.optional_text("signal_unit"))
     try:
         found = analyse(record.time, record.signal, record.sample_rate, band)
     except DecayError as error:
@@ -68,10 +68,6 @@ def compute(inputs: Inputs) -> Result:
     notes = tuple(Flag("info", note) for note in record.notes)
     return inputs.result(values, series=found.series, flags=notes + found.flags, references=REFERENCES,
                          signal_kind=kind, files=(InputFile(path, record.source.size, record.source.sha256),))
-
-
-def _optional_text(inputs: Inputs, name: str) -> str | None:
-    return inputs.text(name) if inputs.has(name) else None
 
 
 def _values(found: Decay, kind: str) -> dict[str, Value]:

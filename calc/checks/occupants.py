@@ -16,7 +16,7 @@ from fieldmode.calc.demo import LIVELY_FLOOR, demo_name
 from fieldmode.calc.framework.guard import overflow_guard
 from fieldmode.calc.framework.result import Flag, InputFile, Reference, Result, Value, quantity, word
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
-from fieldmode.calc.records.columns import RECORD_COLUMN_FIELDS
+from fieldmode.calc.records.columns import RECORD_COLUMN_FIELDS, record_from_fields
 
 if TYPE_CHECKING:
     from fieldmode.calc.framework.reading import Inputs
@@ -96,18 +96,9 @@ REFERENCES = (
 )
 
 
-def _optional_text(inputs: Inputs, name: str) -> str | None:
-    return inputs.text(name) if inputs.has(name) else None
-
-
 def _record(inputs: Inputs) -> Record:
     """The acceleration record named by the fields; refused unless its signal is an acceleration."""
-    from fieldmode.calc.records.read import MAX_SAMPLE_RATE, MIN_SAMPLE_RATE, read_record
-
-    rate = inputs.optional("sample_rate", None, minimum=MIN_SAMPLE_RATE, maximum=MAX_SAMPLE_RATE)
-    record = read_record(inputs.text("file"), time_column=_optional_text(inputs, "time_column"),
-                         signal_column=_optional_text(inputs, "signal_column"), sample_rate=rate,
-                         signal_unit=_optional_text(inputs, "signal_unit"))
+    record = record_from_fields(inputs)
     if record.kind != "acceleration":
         found = f"is a {record.kind}" if record.kind else "has no unit in its header"
         raise inputs.error("signal_unit", f"signal column {record.channel_name!r} {found}: give the "
@@ -152,7 +143,7 @@ def compute(inputs: Inputs) -> Result:
 
     path = inputs.text("file")
     direction = inputs.text("direction") if inputs.has("direction") else "vertical"
-    chosen = _optional_text(inputs, "weighting")
+    chosen = inputs.optional_text("weighting")
     weighting = chosen or DEFAULT_WEIGHTING[direction]
     period = inputs.text("period") if inputs.has("period") else "day"
     use = inputs.text("use") if inputs.has("use") else "office"

@@ -133,8 +133,8 @@ def _velocities(inputs: Inputs) -> tuple[Record, list[np.ndarray], list[str], li
     rate = inputs.optional("sample_rate", None, minimum=MIN_SAMPLE_RATE, maximum=MAX_SAMPLE_RATE)
     wanted = _axis_names(inputs)
     try:
-        record = read_channels(path, time_column=_optional_text(inputs, "time_column"), signal_columns=wanted,
-                               sample_rate=rate, signal_unit=_optional_text(inputs, "signal_unit"))
+        record = read_channels(path, time_column=inputs.optional_text("time_column"), signal_columns=wanted,
+                               sample_rate=rate, signal_unit=inputs.optional_text("signal_unit"))
     except RecordError as error:
         if error.about == "signal_column":
             raise RecordError(path, error.problem, error.line, about="axes") from error
@@ -201,10 +201,6 @@ def _axis_names(inputs: Inputs) -> list[str] | None:
     if len({name.lower() for name in names}) != len(names):
         raise inputs.error("axes", "a column is named twice")
     return names
-
-
-def _optional_text(inputs: Inputs, name: str) -> str | None:
-    return inputs.text(name) if inputs.has(name) else None
 
 
 def _events(inputs: Inputs, axes: list[np.ndarray], rate: float, t0: float, t_end: float,

@@ -15,7 +15,7 @@ from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 from fieldmode.calc.physics import design_spectrum
 from fieldmode.calc.physics.spectrum import DEFAULT_GRID, period_grid
 from fieldmode.calc.records import accelerogram
-from fieldmode.calc.records.columns import RECORD_COLUMN_FIELDS
+from fieldmode.calc.records.columns import RECORD_COLUMN_FIELDS, record_from_fields
 
 MAX_PERIOD = 20.0
 """Longest period accepted (s)."""
@@ -159,13 +159,8 @@ def _periods(inputs: Inputs) -> np.ndarray:
 
 def _record(inputs: Inputs) -> tuple[np.ndarray, np.ndarray, float, list[Flag], InputFile]:
     """Time (s), ground acceleration (m/s^2), time step (s), reading notes, and the file read."""
-    from fieldmode.calc.records.read import MAX_SAMPLE_RATE, MIN_SAMPLE_RATE, read_record
-
-    rate = inputs.optional("sample_rate", None, minimum=MIN_SAMPLE_RATE, maximum=MAX_SAMPLE_RATE)
+    record = record_from_fields(inputs)
     path = inputs.text("file")
-    record = read_record(path, time_column=_optional_text(inputs, "time_column"),
-                         signal_column=_optional_text(inputs, "signal_column"), sample_rate=rate,
-                         signal_unit=_optional_text(inputs, "signal_unit"))
     if record.kind != "acceleration":
         found = f"is a {record.kind}" if record.kind else "has no unit in its header"
         raise inputs.error("signal_unit", f"signal column {record.channel_name!r} {found}: give the "
@@ -177,10 +172,6 @@ def _record(inputs: Inputs) -> tuple[np.ndarray, np.ndarray, float, list[Flag], 
         raise inputs.error("file", f"accelerations above {MAX_ACCELERATION:g} m/s^2: check the signal unit")
     notes = [Flag("info", note) for note in record.notes]
     return record.time, record.signal, dt, notes, InputFile(path, record.source.size, record.source.sha256)
-
-
-def _optional_text(inputs: Inputs, name: str) -> str | None:
-    return inputs.text(name) if inputs.has(name) else None
 
 
 def _flags(spectrum: Spectrum, dt: float, duration: float, acc: np.ndarray, corrected: np.ndarray,

@@ -195,6 +195,10 @@ class Inputs:
         assert isinstance(reading, str), name
         return reading
 
+    def optional_text(self, name: str) -> str | None:
+        """A choice, path or text field as read, or None when it is empty."""
+        return self.text(name) if self.has(name) else None
+
     def error(self, name: str, problem: str) -> InputError:
         """An :class:`InputError` about field ``name`` as typed."""
         spec_field = self.spec.field(name)
