@@ -8,8 +8,7 @@ from typing import Any
 import numpy as np
 
 from fieldmode.calc.framework.result import Result
-from fieldmode.tui.charts.common import OPERATING_MARKER, axis_scale
-from fieldmode.tui.charts.ppv_distance import log_ticks
+from fieldmode.tui.charts.common import OPERATING_MARKER, axis_scale, log_ticks, tick_labels
 
 ZONES = ("A", "B", "C", "D")
 
@@ -28,7 +27,7 @@ def draw_zones(plt: Any, result: Result, system: str) -> None:
     plt.scatter([measured * scale], [float(np.interp(measured, velocity, zone))], marker=OPERATING_MARKER)
     plt.xscale("log")
     ticks = log_ticks(float(velocity[0] * scale), float(velocity[-1] * scale))
-    plt.xticks(ticks, [f"{t:g}" for t in ticks])
+    plt.xticks(ticks, tick_labels(ticks))
     plt.yticks([1, 2, 3, 4], list(ZONES))
     plt.ylim(0.5, 4.5)
     plt.title(f"Zone by r.m.s. velocity, {OPERATING_MARKER} measured")
@@ -56,11 +55,11 @@ def draw_balance(plt: Any, result: Result, system: str) -> None:
     plt.xscale("log")
     plt.yscale("log")
     ticks = log_ticks(float(speed[0]), float(speed[-1]))
-    plt.xticks(ticks, [f"{t:g}" for t in ticks])
+    plt.xticks(ticks, tick_labels(ticks))
     low = min(float(np.min(result.series[name])) for name in result.series if name.endswith("eccentricity"))
     high = max(float(np.max(result.series[name])) for name in result.series if name.endswith("eccentricity"))
     ticks = log_ticks(low * scale, high * scale)
-    plt.yticks(ticks, [f"{t:g}" for t in ticks])
+    plt.yticks(ticks, tick_labels(ticks))
     plt.title("Permissible eccentricity, . next grades")
     plt.xlabel("speed (rpm)")
     plt.ylabel(f"e_per ({unit})")

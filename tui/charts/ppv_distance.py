@@ -3,21 +3,12 @@ distance given marked `X`."""
 
 from __future__ import annotations
 
-import math
 from typing import Any
 
 import numpy as np
 
 from fieldmode.calc.framework.result import Result
-from fieldmode.tui.charts.common import LINE_MARKER, OPERATING_MARKER, axis_scale, downsample
-
-
-def log_ticks(low: float, high: float) -> list[float]:
-    """1-2-5 tick values from ``low`` to ``high`` (both > 0), at most about eight of them."""
-    ticks = [step * 10.0**decade for decade in range(math.floor(math.log10(low)), math.ceil(math.log10(high)) + 1)
-             for step in (1.0, 2.0, 5.0)]
-    inside = [t for t in ticks if low * 0.999 <= t <= high * 1.001]
-    return inside if len(inside) <= 8 else [t for t in inside if f"{t:g}".lstrip("0.")[0] == "1"]
+from fieldmode.tui.charts.common import LINE_MARKER, OPERATING_MARKER, axis_scale, downsample, log_ticks, tick_labels
 
 
 def draw_ppv(plt: Any, result: Result, system: str) -> None:
@@ -40,15 +31,12 @@ def draw_ppv(plt: Any, result: Result, system: str) -> None:
         plt.scatter([at * x_scale], [given * y_scale], marker=OPERATING_MARKER)
     plt.xscale("log")
     plt.yscale("log")
-    plt.xticks(*_labelled(log_ticks(float(x[0]), float(x[-1]))))
-    plt.yticks(*_labelled(log_ticks(low, high)))
+    x_ticks, y_ticks = log_ticks(float(x[0]), float(x[-1])), log_ticks(low, high)
+    plt.xticks(x_ticks, tick_labels(x_ticks))
+    plt.yticks(y_ticks, tick_labels(y_ticks))
     plt.title(f"Predicted PPV, {OPERATING_MARKER} given, - limit")
     plt.xlabel(f"distance ({x_unit})")
     plt.ylabel(f"PPV ({y_unit})")
-
-
-def _labelled(ticks: list[float]) -> tuple[list[float], list[str]]:
-    return ticks, [f"{t:g}" for t in ticks]
 
 
 PANELS = (draw_ppv,)

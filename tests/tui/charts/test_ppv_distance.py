@@ -4,8 +4,7 @@ from __future__ import annotations
 
 from helpers.charts import draw_panels, plot_area
 
-from fieldmode.tui.charts.common import OPERATING_MARKER
-from fieldmode.tui.charts.ppv_distance import log_ticks
+from fieldmode.tui.charts.common import OPERATING_MARKER, log_ticks
 
 CHART_VIEW = (49, 16)
 """About the plot of the chart view at 80x24."""
