@@ -11,13 +11,13 @@ footbridge and floor damping) come from the physics modules, so F7 and the check
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass
 from typing import TYPE_CHECKING
 
 from fieldmode.calc.framework.meaning import BUILDING, DAMPING_RATIO, MACHINE, MOUNTS, STRUCTURE
 from fieldmode.calc.physics import floor_walking, footbridge, footfall
 from fieldmode.calc.physics.machine import TYPICAL_GRADES
+from fieldmode.calc.physics.sdof import damping_ratio_from_log_decrement
 
 if TYPE_CHECKING:
     from fieldmode.calc.framework.spec import Field
@@ -46,11 +46,6 @@ class Table:
     """What a picked row puts in the field, said in a few words."""
     notes: tuple[str, ...] = ()
     """What the source says beside its table (factors, which values are indicative)."""
-
-
-def ratio_from_log_decrement(decrement: float) -> float:
-    """Damping ratio from a logarithmic decrement: zeta = delta / sqrt(4 pi^2 + delta^2)."""
-    return decrement / math.sqrt(4.0 * math.pi**2 + decrement**2)
 
 
 def _percent(ratio: float) -> str:
@@ -224,7 +219,7 @@ def _wind_rows() -> list[Row]:
         note = f"log dec. {low:g}" if low == high else f"log dec. {low:g}-{high:g}"
         if bridge:
             note += f", x{CABLE_STAYED_FACTOR:g} cable-stayed"
-        rows.append(Row(structure, _percent(ratio_from_log_decrement(low)), note, source))
+        rows.append(Row(structure, _percent(damping_ratio_from_log_decrement(low)), note, source))
     return rows
 
 
