@@ -118,6 +118,7 @@ def compute(inputs: Inputs) -> Result:
 def _load(inputs: Inputs, frequency: float, transmitted: float, mounts: int, flags: list[Flag]) -> dict[str, Value]:
     """The machine's force (given, from m e, or from a balance grade) and what of it reaches the support."""
     values: dict[str, Value] = {}
+    force: float | None = None
     if inputs.has("grade"):
         balance = grade_unbalance(inputs, frequency, "mass")
         force = balance.force
@@ -127,10 +128,9 @@ def _load(inputs: Inputs, frequency: float, transmitted: float, mounts: int, fla
         force = forced.unbalance_force(inputs.value("unbalance", positive=True), frequency)
     elif inputs.has("force"):
         force = inputs.value("force", positive=True)
-    else:
-        flags.extend(rotor_mass_unused(inputs))
-        return values
     flags.extend(rotor_mass_unused(inputs))
+    if force is None:
+        return values
     return {"force_amplitude": quantity("Force amplitude", "force", force), **values,
             "transmitted_force": quantity("Force into the support", "force", transmitted * force),
             "transmitted_per_mount": quantity("Force per mount", "force", transmitted * force / mounts)}
