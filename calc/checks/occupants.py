@@ -165,8 +165,7 @@ def compute(inputs: Inputs) -> Result:
         if lowest > LOWEST_BAND_LIMIT:
             raise ValueError(f"the record lasts {duration:.3g} s: too short for the one-third-octave band at "
                              f"{LOWEST_BAND_LIMIT:g} Hz")
-        bands = hr.band_spectrum(acceleration, fs, lowest, HIGHEST_BAND)
-        weighted_bands = hr.band_spectrum(acceleration, fs, lowest, HIGHEST_BAND, weighting)
+        bands, weighted_bands = hr.band_spectra(acceleration, fs, lowest, HIGHEST_BAND, (None, weighting))
     except ValueError as error:
         raise RecordError(path, f"signal column {record.channel_name!r}: {error}") from error
     top = int(np.argmax(running))

@@ -20,6 +20,7 @@ The ISO 2631-1 clause numbers above are from memory; the definitions themselves 
 from __future__ import annotations
 
 import math
+from collections.abc import Sequence
 from dataclasses import dataclass
 
 import numpy as np
@@ -234,10 +235,18 @@ def third_octave_bands(f_low: float, f_high: float) -> tuple[np.ndarray, np.ndar
 
 def band_spectrum(acceleration: np.ndarray, fs: float, f_low: float = 1.0, f_high: float = 80.0,
                   weighting: str | None = None) -> BandSpectrum:
-    """One-third-octave band r.m.s. accelerations (m/s^2) of a record, by summing the power of the
-    spectral lines (whole-record FFT, Parseval) inside each band's edges (lower edge included).
+    """One-third-octave band r.m.s. accelerations (m/s^2) of a record, unweighted or with ``weighting``
+    (:func:`band_spectra`)."""
+    return band_spectra(acceleration, fs, f_low, f_high, (weighting,))[0]
 
-    With ``weighting`` each line is multiplied by the analog |W(f)| first, so the bands add up (in
+
+def band_spectra(acceleration: np.ndarray, fs: float, f_low: float, f_high: float,
+                 weightings: Sequence[str | None]) -> list[BandSpectrum]:
+    """One-third-octave band r.m.s. accelerations (m/s^2) of a record, one spectrum per entry of
+    ``weightings`` (None: unweighted), all from one FFT: the power of the spectral lines (whole-record
+    FFT, Parseval) is summed inside each band's edges (lower edge included).
+
+    With a weighting each line is multiplied by the analog |W(f)| first, so the bands add up (in
     quadrature) to the weighted r.m.s. of the content between the outer edges. The record is not
     windowed, so its energy is kept exactly; a steady sine that does not complete whole cycles in the
     record leaks a little into the neighbouring bands (about -25 dB for a 40 s record at 6 Hz).
@@ -261,15 +270,19 @@ def band_spectrum(acceleration: np.ndarray, fs: float, f_low: float = 1.0, f_hig
     power = (np.square(lines.real) + np.square(lines.imag)) * (2.0 / a.size**2)
     del lines
     frequency = np.arange(first, last) * step
-    name = None
-    if weighting is not None:
-        name = weighting_mod.weighting(weighting).name
-        weighting_mod.check_rate(name, rate)
-        power *= np.square(weighting_mod.magnitude(name, frequency))
-    cumulative = np.concatenate([[0.0], np.cumsum(power)])
     start, stop = np.searchsorted(frequency, lower), np.searchsorted(frequency, upper)
-    rms = np.sqrt(np.maximum(cumulative[stop] - cumulative[start], 0.0))
-    return BandSpectrum(nominal, centre, lower, upper, rms, name)
+    spectra = []
+    for weighting in weightings:
+        name = None
+        weighted = power
+        if weighting is not None:
+            name = weighting_mod.weighting(weighting).name
+            weighting_mod.check_rate(name, rate)
+            weighted = power * np.square(weighting_mod.magnitude(name, frequency))
+        cumulative = np.concatenate([[0.0], np.cumsum(weighted)])
+        rms = np.sqrt(np.maximum(cumulative[stop] - cumulative[start], 0.0))
+        spectra.append(BandSpectrum(nominal, centre, lower, upper, rms, name))
+    return spectra
 
 
 @dataclass(frozen=True)
