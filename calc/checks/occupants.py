@@ -14,7 +14,7 @@ import numpy as np
 
 from fieldmode.calc.demo import LIVELY_FLOOR, demo_name
 from fieldmode.calc.framework.guard import overflow_guard
-from fieldmode.calc.framework.result import Flag, InputFile, Reference, Result, Value, quantity, word
+from fieldmode.calc.framework.result import MEASURED_CAUTION, Flag, InputFile, Reference, Result, Value, quantity, word
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 from fieldmode.calc.records.columns import RECORD_COLUMN_FIELDS, record_from_fields
 
@@ -23,8 +23,6 @@ if TYPE_CHECKING:
     from fieldmode.calc.records.human_response import EstimatedVdv, VdvBand
     from fieldmode.calc.records.read import Record
 
-CAUTION = ("Guideline values are screening references: the building's condition, local rules and a licensed "
-           "engineer govern, and vibration that people complain of is judged by the local authority's procedure.")
 
 WEIGHTINGS = ("Wb", "Wk", "Wd", "Wm")
 DIRECTIONS = ("vertical", "horizontal")
@@ -289,7 +287,7 @@ SPEC = CheckSpec(
             "(BS 6472-1), response factor (ISO 10137)",
     fields=FIELDS,
     compute=compute,
-    caution=CAUTION,
+    caution=MEASURED_CAUTION,
     key_results=("response_verdict", "vdv_period", "mtvv", "weighted_rms"),
     series=(
         Series("band_frequency", "One-third-octave band centre", "frequency"),

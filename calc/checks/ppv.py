@@ -14,7 +14,7 @@ import numpy as np
 
 from fieldmode.calc.demo import SHEET_PILING, demo_name
 from fieldmode.calc.framework.guard import overflow_guard
-from fieldmode.calc.framework.result import Flag, InputFile, Reference, Result, Value, quantity, word
+from fieldmode.calc.framework.result import MEASURED_CAUTION, Flag, InputFile, Reference, Result, Value, quantity, word
 from fieldmode.calc.framework.spec import CheckSpec, Field, Series
 from fieldmode.calc.physics import vibration_limits as limits
 from fieldmode.calc.records.columns import RECORD_COLUMN_FIELDS
@@ -24,8 +24,6 @@ if TYPE_CHECKING:
     from fieldmode.calc.records.ppv import AxisPeak, Event
     from fieldmode.calc.records.read import Record
 
-CAUTION = ("Guideline values are screening references: the building's condition, local rules and a licensed "
-           "engineer govern, and vibration that people complain of is judged by the local authority's procedure.")
 
 PEOPLE = "bs5228-people"
 """The guideline choice that compares with the BS 5228-2 human-response levels (no limit)."""
@@ -402,7 +400,7 @@ SPEC = CheckSpec(
             "peak, against DIN 4150-3, BS 7385-2 or BS 5228-2",
     fields=FIELDS,
     compute=compute,
-    caution=CAUTION,
+    caution=MEASURED_CAUTION,
     key_results=("verdict", "ratio", "vector_sum", "events"),
     series=(
         Series("time", "Time", "time"),

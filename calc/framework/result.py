@@ -21,6 +21,10 @@ CAUTION = ("Screening estimates, not a design: check against local codes and lic
            "engineering practice.")
 SEISMIC_CAUTION = ("Seismic screening only, not a design: the design code, a site-specific "
                    "hazard study and a licensed engineer govern.")
+MEASURED_CAUTION = ("Guideline values are screening references: the building's condition, local rules and a "
+                    "licensed engineer govern, and vibration that people complain of is judged by the local "
+                    "authority's procedure.")
+"""The caution of the checks that judge a measured vibration record against guideline values."""
 
 Level = Literal["info", "caution", "warning"]
 
